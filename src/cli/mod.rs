@@ -1,0 +1,37 @@
+//! The command line: argument parsing and `anyhow` reporting over the library's front-ends.
+//!
+//! Only this layer uses `anyhow`; everything below returns typed errors.
+
+use std::process::ExitCode;
+
+use clap::{Parser, Subcommand};
+
+/// Gaugebook: strain-gauge transducer design and test-data reanalysis.
+#[derive(Parser, Debug)]
+#[command(name = "gaugebook", version, about)]
+struct Args {
+    #[command(subcommand)]
+    command: Command,
+}
+
+#[derive(Subcommand, Debug)]
+enum Command {
+    /// Run the main job on an embedded example and print the results.
+    Demo,
+}
+
+/// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
+/// of causes on standard error.
+pub fn main() -> ExitCode {
+    let args = Args::parse();
+    let result: anyhow::Result<()> = match args.command {
+        Command::Demo => Ok(()),
+    };
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("error: {e:#}");
+            ExitCode::FAILURE
+        }
+    }
+}

@@ -1,0 +1,27 @@
+//! Gaugebook: unit-checked strain-gauge, bridge, spring-element, calibration and uncertainty
+//! methods for the engineers who design and test strain-gauge transducers.
+//!
+//! The physics core (this crate with `--no-default-features`) takes and returns uom quantities
+//! and the [`Strain`] and [`OutputRatio`] newtypes. The scripting layer (feature `script`) exposes
+//! it to Rhai; the kernel (feature `kernel`) serves those scripts to Jupyter.
+//!
+//! ```
+//! use gaugebook::{OutputRatio, Strain};
+//! let e = Strain::from_microstrain(1000.0);
+//! assert_eq!(e.to_string(), "1000 µε");
+//! assert_eq!(OutputRatio::from_mv_per_v(2.0).value(), 0.002);
+//! ```
+//!
+//! Design results are estimates that must be proven by test. Overload, fatigue and
+//! legal-for-trade approval follow local codes and licensed practice.
+
+#![warn(missing_docs)]
+
+mod error;
+pub mod units;
+
+pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
+pub use units::{Dimension, Kind, OutputRatio, Strain};
+
+#[cfg(feature = "cli")]
+pub mod cli;

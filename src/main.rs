@@ -1,0 +1,5 @@
+//! The `gaugebook` command: a thin shell over [`gaugebook::cli`].
+
+fn main() -> std::process::ExitCode {
+    gaugebook::cli::main()
+}
