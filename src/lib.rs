@@ -21,7 +21,7 @@ mod error;
 pub mod units;
 
 pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
-pub use units::{Dimension, Kind, OutputRatio, Strain};
+pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
 #[cfg(feature = "cli")]
 pub mod cli;

@@ -4,11 +4,17 @@
 //! This layer depends on std and uom only.
 
 mod dimension;
+mod error;
 mod kind;
+mod quantity;
 pub mod si;
 mod strain;
+mod unit;
 
 pub use dimension::Dimension;
+pub use error::UnitError;
 pub use kind::Kind;
+pub use quantity::Quantity;
 pub use si::*;
 pub use strain::{OutputRatio, Strain};
+pub use unit::Unit;
