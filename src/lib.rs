@@ -17,9 +17,11 @@
 
 #![warn(missing_docs)]
 
+mod display;
 mod error;
 pub mod units;
 
+pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
