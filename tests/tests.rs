@@ -2,4 +2,5 @@
 
 mod bridge;
 mod common;
+mod data;
 mod gauge;
