@@ -261,8 +261,7 @@ fn pipeline(args: &[String]) -> Res<()> {
             lo = lo.min(v);
             hi = hi.max(v);
         }
-        let dev: Vec<f64> = x.iter().map(|v| (v - mean) * (v - mean)).collect();
-        let std = (pairwise_sum(&dev) / (n - 1.0)).sqrt();
+        let std = (pairwise_by(x.len(), &|i| (x[i] - mean) * (x[i] - mean)) / (n - 1.0)).sqrt();
         let crossings = x.windows(2).filter(|w| w[0] < mean && mean <= w[1]).count();
         let z = zero.ok_or("zero")?[k];
         let _ = write!(
@@ -279,16 +278,14 @@ fn pipeline(args: &[String]) -> Res<()> {
     let (x, y) = (&filt[0], &load);
     let n = x.len() as f64;
     let (xm, ym) = (pairwise_sum(x) / n, pairwise_sum(y) / n);
-    let sxy: Vec<f64> = x.iter().zip(y).map(|(a, b)| (a - xm) * (b - ym)).collect();
-    let sxx: Vec<f64> = x.iter().map(|a| (a - xm) * (a - xm)).collect();
-    let b = pairwise_sum(&sxy) / pairwise_sum(&sxx);
+    let sxy = pairwise_by(x.len(), &|i| (x[i] - xm) * (y[i] - ym));
+    let sxx = pairwise_by(x.len(), &|i| (x[i] - xm) * (x[i] - xm));
+    let b = sxy / sxx;
     let a = ym - b * xm;
-    let res2: Vec<f64> = x.iter().zip(y).map(|(xi, yi)| (yi - (a + b * xi)).powi(2)).collect();
-    let syy: Vec<f64> = y.iter().map(|v| (v - ym) * (v - ym)).collect();
-    let ss_res = pairwise_sum(&res2);
-    let r2 = 1.0 - ss_res / pairwise_sum(&syy);
+    let ss_res = pairwise_by(x.len(), &|i| (y[i] - (a + b * x[i])).powi(2));
+    let syy = pairwise_by(y.len(), &|i| (y[i] - ym) * (y[i] - ym));
+    let r2 = 1.0 - ss_res / syy;
     let rmse = (ss_res / n).sqrt();
-    drop((sxy, sxx, res2, syy));
     tm.fit = t4.elapsed().as_secs_f64();
 
     // f) wait for the strain file.
@@ -391,28 +388,39 @@ fn num(v: f64) -> String {
 /// Pairwise summation in numpy's layout (blocks of 128 in 8 lanes; numpy
 /// `_multiarray_umath` pairwise_sum, numpy 2.4.6), so means agree with numpy's to round-off.
 fn pairwise_sum(x: &[f64]) -> f64 {
-    if x.len() < 8 {
-        return x.iter().sum();
-    }
-    if x.len() <= 128 {
-        let mut r = [0.0; 8];
-        r.copy_from_slice(&x[..8]);
-        let mut i = 8;
-        while i + 8 <= x.len() {
-            for k in 0..8 {
-                r[k] += x[i + k];
+    pairwise_by(x.len(), &|i| x[i])
+}
+
+/// [`pairwise_sum`] of `f(0) … f(n−1)` without building the array (no 80 MB temporaries).
+fn pairwise_by(n: usize, f: &impl Fn(usize) -> f64) -> f64 {
+    fn go(lo: usize, hi: usize, f: &impl Fn(usize) -> f64) -> f64 {
+        let n = hi - lo;
+        if n < 8 {
+            return (lo..hi).map(f).fold(0.0, |a, b| a + b);
+        }
+        if n <= 128 {
+            let mut r = [0.0; 8];
+            for (k, v) in r.iter_mut().enumerate() {
+                *v = f(lo + k);
             }
-            i += 8;
+            let mut i = lo + 8;
+            while i + 8 <= hi {
+                for (k, v) in r.iter_mut().enumerate() {
+                    *v += f(i + k);
+                }
+                i += 8;
+            }
+            let mut s = ((r[0] + r[1]) + (r[2] + r[3])) + ((r[4] + r[5]) + (r[6] + r[7]));
+            for j in i..hi {
+                s += f(j);
+            }
+            return s;
         }
-        let mut s = ((r[0] + r[1]) + (r[2] + r[3])) + ((r[4] + r[5]) + (r[6] + r[7]));
-        for v in &x[i..] {
-            s += v;
-        }
-        return s;
+        let mut half = n / 2;
+        half -= half % 8;
+        go(lo, lo + half, f) + go(lo + half, hi, f)
     }
-    let mut half = x.len() / 2;
-    half -= half % 8;
-    pairwise_sum(&x[..half]) + pairwise_sum(&x[half..])
+    go(0, n, f)
 }
 
 // ---------------------------------------------------------------------------------------------

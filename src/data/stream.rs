@@ -252,6 +252,7 @@ fn collect(
     let mut log = stream.layout.clone();
     let mut rows: Option<Vec<usize>> = None;
     let mut n = 0usize;
+    let total = stream.total;
     for chunk in stream.by_ref() {
         let chunk = chunk?;
         progress.advance(chunk.done);
@@ -265,11 +266,11 @@ fn collect(
             r.extend((0..len).map(|i| chunk.row(i)));
         }
         if let (Some(t), Some(v)) = (log.time.as_mut(), chunk.time) {
-            reserve_for(&mut t.channel.values, len, chunk.done, stream.total);
+            reserve_for(&mut t.channel.values, len, chunk.done, total);
             t.channel.values.extend_from_slice(&v);
         }
         for (c, v) in log.channels.iter_mut().zip(chunk.channels) {
-            reserve_for(&mut c.values, len, chunk.done, stream.total);
+            reserve_for(&mut c.values, len, chunk.done, total);
             c.values.extend_from_slice(&v);
         }
         log.skipped.extend(chunk.skipped);
@@ -592,7 +593,8 @@ fn parse_block(
         if c.timestamp {
             let ca = col.str().map_err(engine)?;
             let mut out = Vec::with_capacity(height);
-            for (i, v) in ca.into_iter().enumerate() {
+            let texts = ca.downcast_iter().flat_map(|arr| arr.iter());
+            for (i, v) in texts.enumerate() {
                 let text = v.unwrap_or("");
                 match parse_timestamp_parts(text) {
                     Some((w, f)) => out.push((w - s.t0.0) as f64 + (f - s.t0.1)),
