@@ -1,3 +1,5 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
 mod common;
+#[cfg(feature = "kernel")]
+mod kernel;
