@@ -396,3 +396,28 @@ fn soak_of_ten_thousand_cells_reports_memory_growth() {
     };
     assert!(out.contains("\"wrong_replies\": 0"), "{out}");
 }
+
+/// The latency comparison with ipykernel (issue 4 item 8). Ignored by default: it needs the
+/// shared bench's kernel_latency.py (`GAUGEBOOK_LATENCY_PROBE`, default
+/// `../../shared/bench/kernel_latency.py` from the crate) and an otherwise idle machine.
+/// Run: `cargo test --release kernel::latency -- --ignored --nocapture`.
+#[test]
+#[ignore]
+fn latency_against_ipykernel() {
+    let probe = std::env::var_os("GAUGEBOOK_LATENCY_PROBE")
+        .map(PathBuf::from)
+        .unwrap_or_else(|| {
+            Path::new(env!("CARGO_MANIFEST_DIR")).join("../../shared/bench/kernel_latency.py")
+        });
+    assert!(probe.exists(), "no latency probe at {}", probe.display());
+    let engine = if std::env::var_os("GAUGEBOOK_LATENCY_FAKE").is_some() {
+        Engine::Fake
+    } else {
+        Engine::Session
+    };
+    let probe = probe.to_string_lossy().into_owned();
+    let Some(out) = run_py("latency.py", engine, &["--probe", &probe, "--code", "1+1"]) else {
+        return;
+    };
+    assert!(out.contains("\"ratios\""), "{out}");
+}
