@@ -281,7 +281,12 @@ fn jupyter_path(engine: Engine) -> tempfile::TempDir {
     let bin = option_env!("CARGO_BIN_EXE_gaugebook");
     let (argv, env): (Vec<String>, Option<&str>) = match (engine, bin) {
         (Engine::Session, Some(bin)) => (
-            vec![bin.into(), "kernel".into(), "run".into(), "{connection_file}".into()],
+            vec![
+                bin.into(),
+                "kernel".into(),
+                "run".into(),
+                "{connection_file}".into(),
+            ],
             None,
         ),
         _ => {
@@ -296,7 +301,11 @@ fn jupyter_path(engine: Engine) -> tempfile::TempDir {
                     "--test-threads=1".into(),
                     "{connection_file}".into(),
                 ],
-                Some(if engine == Engine::Fake { "fake" } else { "session" }),
+                Some(if engine == Engine::Fake {
+                    "fake"
+                } else {
+                    "session"
+                }),
             )
         }
     };
@@ -341,7 +350,11 @@ fn run_py(script: &str, engine: Engine, args: &[&str]) -> Option<String> {
     let stderr = String::from_utf8_lossy(&out.stderr).into_owned();
     // Shown with --nocapture: the Python side's own report (pass counts, timings).
     let mut e = std::io::stderr().lock();
-    let _ = writeln!(e, "--- {script} ({}) stdout ---\n{stdout}", engine_name(engine));
+    let _ = writeln!(
+        e,
+        "--- {script} ({}) stdout ---\n{stdout}",
+        engine_name(engine)
+    );
     let _ = writeln!(e, "--- {script} stderr ---\n{stderr}");
     assert!(out.status.success(), "{script} failed:\n{stdout}\n{stderr}");
     Some(stdout)

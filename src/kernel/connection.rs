@@ -75,6 +75,41 @@ impl ConnectionInfo {
         })
     }
 
+    /// A fresh connection on loopback with system-chosen ports (0) and a random key, for a
+    /// kernel started without a client's connection file.
+    pub fn fresh() -> ConnectionInfo {
+        ConnectionInfo {
+            ip: "127.0.0.1".into(),
+            key: uuid::Uuid::new_v4().to_string(),
+            shell_port: 0,
+            iopub_port: 0,
+            stdin_port: 0,
+            control_port: 0,
+            hb_port: 0,
+        }
+    }
+
+    /// Writes the connection file, readable and writable by its owner alone (mode 0600 on
+    /// Unix): the key in it lets anyone who reads it run code in the kernel.
+    pub fn write(&self, path: &Path) -> Result<(), KernelError> {
+        let text = serde_json::json!({
+            "shell_port": self.shell_port, "iopub_port": self.iopub_port,
+            "stdin_port": self.stdin_port, "control_port": self.control_port,
+            "hb_port": self.hb_port, "ip": self.ip, "key": self.key, "transport": "tcp",
+            "signature_scheme": "hmac-sha256", "kernel_name": super::KERNEL_NAME,
+        });
+        let fail = |e: std::io::Error| KernelError::Connection {
+            path: path.to_path_buf(),
+            message: format!("cannot write: {e}"),
+        };
+        let mut options = std::fs::OpenOptions::new();
+        options.write(true).create_new(true);
+        #[cfg(unix)]
+        std::os::unix::fs::OpenOptionsExt::mode(&mut options, 0o600);
+        let mut file = options.open(path).map_err(fail)?;
+        std::io::Write::write_all(&mut file, format!("{text:#}\n").as_bytes()).map_err(fail)
+    }
+
     /// The zeromq endpoint for one port, on the connection file's address only.
     pub fn endpoint(&self, port: u16) -> String {
         if self.ip.contains(':') {
@@ -104,9 +139,37 @@ mod tests {
     #[test]
     fn rejects_other_transports_and_bad_ports() {
         let ipc = SAMPLE.replace("\"tcp\"", "\"ipc\"");
-        assert!(ConnectionInfo::parse(&ipc).unwrap_err().contains("transport"));
+        assert!(
+            ConnectionInfo::parse(&ipc)
+                .unwrap_err()
+                .contains("transport")
+        );
         let big = SAMPLE.replace("5001", "70000");
-        assert!(ConnectionInfo::parse(&big).unwrap_err().contains("shell_port"));
+        assert!(
+            ConnectionInfo::parse(&big)
+                .unwrap_err()
+                .contains("shell_port")
+        );
         assert!(ConnectionInfo::parse("[1]").is_err());
+    }
+
+    #[test]
+    fn written_files_are_private_and_read_back() {
+        let tmp = tempfile::tempdir().unwrap();
+        let path = tmp.path().join("kernel-own.json");
+        let mut c = ConnectionInfo::fresh();
+        c.shell_port = 6001;
+        c.write(&path).unwrap();
+        assert_eq!(ConnectionInfo::read(&path).unwrap(), c);
+        #[cfg(unix)]
+        {
+            use std::os::unix::fs::PermissionsExt;
+            let mode = std::fs::metadata(&path).unwrap().permissions().mode();
+            assert_eq!(mode & 0o777, 0o600);
+        }
+        assert!(
+            c.write(&path).is_err(),
+            "an existing file is never overwritten"
+        );
     }
 }

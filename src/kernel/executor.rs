@@ -3,7 +3,7 @@
 
 use std::panic::{AssertUnwindSafe, catch_unwind};
 use std::sync::atomic::{AtomicBool, Ordering};
-use std::sync::{Arc, Mutex, mpsc};
+use std::sync::{Arc, Mutex, OnceLock, mpsc};
 
 use serde_json::{Value, json};
 use tokio::sync::oneshot;
@@ -110,21 +110,27 @@ pub(crate) fn bundle_json(bundle: &MimeBundle) -> Value {
 /// The running engine as the rest of the kernel sees it.
 pub(crate) struct Executor {
     pub jobs: mpsc::Sender<Job>,
-    interrupter: Interrupter,
+    interrupter: Arc<OnceLock<Interrupter>>,
     running: Arc<AtomicBool>,
 }
 
 impl Executor {
-    /// Starts the thread, builds the engine on it with `make`, and waits until it is ready.
-    pub fn start<B, F>(make: F, iopub: Iopub) -> Result<Executor, KernelError>
+    /// Starts the thread, which builds the engine with `make`. Returns at once, so the sockets
+    /// answer kernel_info while the engine loads; jobs sent meanwhile wait in the queue. If the
+    /// engine cannot be built, the error arrives on the returned receiver.
+    pub fn start<B, F>(
+        make: F,
+        iopub: Iopub,
+    ) -> Result<(Executor, oneshot::Receiver<KernelError>), KernelError>
     where
         B: Backend + 'static,
         F: FnOnce() -> Result<B, KernelError> + Send + 'static,
     {
         let (job_tx, job_rx) = mpsc::channel::<Job>();
-        let (ready_tx, ready_rx) = mpsc::channel::<Result<Interrupter, KernelError>>();
+        let (fail_tx, fail_rx) = oneshot::channel::<KernelError>();
         let running = Arc::new(AtomicBool::new(false));
-        let flag = running.clone();
+        let interrupter = Arc::new(OnceLock::new());
+        let (flag, slot) = (running.clone(), interrupter.clone());
         let output = Arc::new(CellOutput {
             iopub,
             parent: Mutex::new(json!({})),
@@ -136,30 +142,32 @@ impl Executor {
                 let mut backend = match make() {
                     Ok(b) => b,
                     Err(e) => {
-                        let _ = ready_tx.send(Err(e));
+                        let _ = fail_tx.send(e);
                         return;
                     }
                 };
                 backend.set_output(output.clone());
-                let _ = ready_tx.send(Ok(backend.interrupter()));
+                let _ = slot.set(backend.interrupter());
                 serve(&mut backend, &output, &flag, job_rx);
             })
             .map_err(|e| KernelError::Backend(format!("cannot start the execution thread: {e}")))?;
-        let interrupter = ready_rx.recv().map_err(|_| {
-            KernelError::Backend("the execution thread stopped while starting".into())
-        })??;
-        Ok(Executor {
-            jobs: job_tx,
-            interrupter,
-            running,
-        })
+        Ok((
+            Executor {
+                jobs: job_tx,
+                interrupter,
+                running,
+            },
+            fail_rx,
+        ))
     }
 
     /// Stops the running cell, if one runs (an interrupt while idle is a no-op, so it cannot
     /// break the next cell).
     pub fn interrupt(&self) {
-        if self.running.load(Ordering::SeqCst) {
-            (self.interrupter)();
+        if self.running.load(Ordering::SeqCst)
+            && let Some(stop) = self.interrupter.get()
+        {
+            stop();
         }
     }
 }
@@ -222,6 +230,8 @@ fn panic_error(panic: &(dyn std::any::Any + Send)) -> CellError {
     CellError {
         ename: "InternalError".into(),
         evalue: format!("a native function panicked: {what}"),
-        traceback: vec![format!("internal error: a native function panicked: {what}")],
+        traceback: vec![format!(
+            "internal error: a native function panicked: {what}"
+        )],
     }
 }

@@ -125,10 +125,15 @@ mod tests {
     fn tail_range_and_search() {
         let h = sample();
         let tail = h.query(&json!({"hist_access_type": "tail", "n": 2}));
-        assert_eq!(tail, vec![json!([1, 3, "print(a)"]), json!([1, 4, "a + 1"])]);
-        let range = h.query(&json!({"hist_access_type": "range", "session": 0, "start": 2, "stop": 4}));
+        assert_eq!(
+            tail,
+            vec![json!([1, 3, "print(a)"]), json!([1, 4, "a + 1"])]
+        );
+        let range =
+            h.query(&json!({"hist_access_type": "range", "session": 0, "start": 2, "stop": 4}));
         assert_eq!(range.len(), 2);
-        let search = h.query(&json!({"hist_access_type": "search", "pattern": "a*", "unique": true}));
+        let search =
+            h.query(&json!({"hist_access_type": "search", "pattern": "a*", "unique": true}));
         assert_eq!(search, vec![json!([1, 4, "a + 1"])]);
         let with_output = h.query(&json!({"hist_access_type": "tail", "n": 1, "output": true}));
         assert_eq!(with_output, vec![json!([1, 4, ["a + 1", "2"]])]);

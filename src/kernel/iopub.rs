@@ -74,7 +74,10 @@ async fn run(
                     let _ = done.send(());
                 }
                 Item::Msg(msg) => {
-                    let frames = signer.lock().unwrap_or_else(|p| p.into_inner()).encode(&msg);
+                    let frames = signer
+                        .lock()
+                        .unwrap_or_else(|p| p.into_inner())
+                        .encode(&msg);
                     if let Some(z) = super::wire::to_zmq(frames)
                         && let Err(e) = socket.send(z).await
                     {

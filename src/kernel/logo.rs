@@ -96,7 +96,11 @@ fn raster(size: u32) -> Vec<u8> {
             for k in 0..3 {
                 // Colour is averaged over covered samples only (straight, not premultiplied, alpha).
                 let covered = acc[3] / 255.0;
-                px.push(if covered > 0.0 { (acc[k] / covered).round() as u8 } else { 0 });
+                px.push(if covered > 0.0 {
+                    (acc[k] / covered).round() as u8
+                } else {
+                    0
+                });
             }
             px.push(alpha.round() as u8);
         }
@@ -156,7 +160,11 @@ fn crc32(data: &[u8]) -> u32 {
     for &b in data {
         crc ^= u32::from(b);
         for _ in 0..8 {
-            crc = if crc & 1 != 0 { (crc >> 1) ^ 0xedb8_8320 } else { crc >> 1 };
+            crc = if crc & 1 != 0 {
+                (crc >> 1) ^ 0xedb8_8320
+            } else {
+                crc >> 1
+            };
         }
     }
     !crc

@@ -53,7 +53,8 @@ pub enum KernelError {
 }
 
 /// Serves a kernel for the client that wrote `connection_file`, with the engine built by `make`
-/// on the execution thread, until a shutdown request.
+/// on the execution thread, until a shutdown request. When the file does not exist, the kernel
+/// binds loopback ports of its own choosing and writes it (owner-only permissions).
 ///
 /// ```no_run
 /// # use std::sync::Arc;
@@ -75,6 +76,15 @@ where
     B: Backend + 'static,
     F: FnOnce() -> Result<B, KernelError> + Send + 'static,
 {
-    let info = connection::ConnectionInfo::read(connection_file)?;
-    server::serve(info, make)
+    if connection_file.exists() {
+        let info = connection::ConnectionInfo::read(connection_file)?;
+        server::serve(info, None, make)
+    } else {
+        // No client wrote the file: choose ports, then write it for clients to connect with.
+        server::serve(
+            connection::ConnectionInfo::fresh(),
+            Some(connection_file),
+            make,
+        )
+    }
 }

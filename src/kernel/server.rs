@@ -37,7 +37,14 @@ enum Channel {
 }
 
 /// Serves one kernel until a shutdown request, on the current thread.
-pub(crate) fn serve<B, F>(info: ConnectionInfo, make: F) -> Result<(), KernelError>
+///
+/// With `write_to`, the kernel chose its own ports (0 in `info`) and writes the connection file
+/// there once they are bound.
+pub(crate) fn serve<B, F>(
+    info: ConnectionInfo,
+    write_to: Option<&std::path::Path>,
+    make: F,
+) -> Result<(), KernelError>
 where
     B: Backend + 'static,
     F: FnOnce() -> Result<B, KernelError> + Send + 'static,
@@ -46,40 +53,58 @@ where
         .enable_all()
         .build()
         .map_err(|e| KernelError::Socket(format!("cannot start the async runtime: {e}")))?;
-    runtime.block_on(serve_async(info, make))
+    runtime.block_on(serve_async(info, write_to, make))
 }
 
-async fn bind<S: Socket>(socket: &mut S, info: &ConnectionInfo, port: u16) -> Result<(), KernelError> {
+/// Binds one socket on the connection file's address and returns the port actually bound (the
+/// same, or the one the system chose for port 0).
+async fn bind<S: Socket>(
+    socket: &mut S,
+    info: &ConnectionInfo,
+    port: u16,
+) -> Result<u16, KernelError> {
     let endpoint = info.endpoint(port);
-    socket
-        .bind(&endpoint)
-        .await
-        .map(|_| ())
-        .map_err(|e| KernelError::Socket(format!("cannot bind {endpoint}: {e}")))
+    match socket.bind(&endpoint).await {
+        Ok(zeromq::Endpoint::Tcp(_, bound)) => Ok(bound),
+        Ok(_) => Ok(port),
+        Err(e) => Err(KernelError::Socket(format!("cannot bind {endpoint}: {e}"))),
+    }
 }
 
-async fn serve_async<B, F>(info: ConnectionInfo, make: F) -> Result<(), KernelError>
+async fn serve_async<B, F>(
+    mut info: ConnectionInfo,
+    write_to: Option<&std::path::Path>,
+    make: F,
+) -> Result<(), KernelError>
 where
     B: Backend + 'static,
     F: FnOnce() -> Result<B, KernelError> + Send + 'static,
 {
+    #[cfg(unix)]
+    let signals = tokio::signal::unix::signal(tokio::signal::unix::SignalKind::interrupt())
+        .map_err(|e| KernelError::Socket(format!("cannot handle SIGINT: {e}")))?;
+    #[cfg(not(unix))]
+    let signals = ();
     let mut shell = RouterSocket::new();
     let mut control = RouterSocket::new();
     let mut stdin = RouterSocket::new();
     let mut iopub_socket = PubSocket::new();
     let mut hb = RepSocket::new();
-    bind(&mut shell, &info, info.shell_port).await?;
-    bind(&mut control, &info, info.control_port).await?;
-    bind(&mut stdin, &info, info.stdin_port).await?;
-    bind(&mut iopub_socket, &info, info.iopub_port).await?;
-    bind(&mut hb, &info, info.hb_port).await?;
+    info.shell_port = bind(&mut shell, &info, info.shell_port).await?;
+    info.control_port = bind(&mut control, &info, info.control_port).await?;
+    info.stdin_port = bind(&mut stdin, &info, info.stdin_port).await?;
+    info.iopub_port = bind(&mut iopub_socket, &info, info.iopub_port).await?;
+    info.hb_port = bind(&mut hb, &info, info.hb_port).await?;
+    if let Some(path) = write_to {
+        info.write(path)?;
+    }
 
     let signer = Arc::new(Mutex::new(Signer::new(info.key.as_bytes())));
     let maker = HeaderMaker {
         session: uuid::Uuid::new_v4().to_string(),
     };
     let iopub = iopub::start(iopub_socket, signer.clone(), maker.clone());
-    let exec = Executor::start(make, iopub.clone())?;
+    let (exec, mut failed) = Executor::start(make, iopub.clone())?;
     iopub.status(&json!({}), "starting");
     let kernel = Arc::new(Kernel {
         signer,
@@ -98,9 +123,12 @@ where
     tokio::spawn(drain_stdin(stdin, kernel.clone()));
     tokio::spawn(serve_router(control, kernel.clone(), Channel::Control));
     tokio::spawn(serve_router(shell, kernel.clone(), Channel::Shell));
-    tokio::spawn(sigint(kernel.clone()));
+    tokio::spawn(sigint(signals, kernel.clone()));
 
-    kernel.shutdown.notified().await;
+    tokio::select! {
+        _ = kernel.shutdown.notified() => {}
+        Ok(e) = &mut failed => return Err(e),
+    }
     kernel.iopub.flush().await;
     // The PUB and ROUTER sockets write on background tasks; give them a moment to put the last
     // replies on the wire before the runtime (and the process) goes away. 50 ms is our choice.
@@ -141,8 +169,17 @@ async fn drain_stdin(mut stdin: RouterSocket, kernel: Arc<Kernel>) {
 }
 
 /// SIGINT must not kill the kernel (clients may send it before a shutdown): it interrupts the
-/// running cell instead.
-async fn sigint(kernel: Arc<Kernel>) {
+/// running cell instead. The handler is installed before the sockets are bound, so no client
+/// can signal the kernel before it is in place.
+#[cfg(unix)]
+async fn sigint(mut signals: tokio::signal::unix::Signal, kernel: Arc<Kernel>) {
+    while signals.recv().await.is_some() {
+        kernel.exec.interrupt();
+    }
+}
+
+#[cfg(not(unix))]
+async fn sigint(_: (), kernel: Arc<Kernel>) {
     while tokio::signal::ctrl_c().await.is_ok() {
         kernel.exec.interrupt();
     }
@@ -161,7 +198,11 @@ async fn serve_router(mut socket: RouterSocket, kernel: Arc<Kernel>, channel: Ch
         let msg = match kernel.decode(&z) {
             Ok(m) => m,
             Err(r) => {
-                let name = if channel == Channel::Shell { "shell" } else { "control" };
+                let name = if channel == Channel::Shell {
+                    "shell"
+                } else {
+                    "control"
+                };
                 eprintln!("gaugebook kernel: dropped {name} message: {r}");
                 continue;
             }
@@ -169,7 +210,11 @@ async fn serve_router(mut socket: RouterSocket, kernel: Arc<Kernel>, channel: Ch
         kernel.iopub.status(&msg.header, "busy");
         let reply = kernel.handle(&msg, channel).await;
         if let Some(reply) = reply {
-            let frames = kernel.signer.lock().unwrap_or_else(|p| p.into_inner()).encode(&reply);
+            let frames = kernel
+                .signer
+                .lock()
+                .unwrap_or_else(|p| p.into_inner())
+                .encode(&reply);
             if let Some(z) = wire::to_zmq(frames)
                 && let Err(e) = socket.send(z).await
             {
@@ -302,17 +347,18 @@ impl Kernel {
                     json!({"status": "ok", "history": history}),
                 ))
             }
-            "comm_info_request" => Some(self.reply(
-                msg,
-                "comm_info_reply",
-                json!({"status": "ok", "comms": {}}),
-            )),
+            "comm_info_request" => {
+                Some(self.reply(msg, "comm_info_reply", json!({"status": "ok", "comms": {}})))
+            }
             "comm_open" => {
                 // No comm targets are registered: close the comm at once, as the specification
                 // asks of a kernel that cannot open one.
                 let id = c.get("comm_id").cloned().unwrap_or(Value::Null);
-                self.iopub
-                    .publish(&msg.header, "comm_close", json!({"comm_id": id, "data": {}}));
+                self.iopub.publish(
+                    &msg.header,
+                    "comm_close",
+                    json!({"comm_id": id, "data": {}}),
+                );
                 None
             }
             "comm_msg" | "comm_close" => None,
@@ -325,9 +371,16 @@ impl Kernel {
 
     async fn execute(&self, msg: &Message) -> Message {
         let c = &msg.content;
-        let code = c.get("code").and_then(Value::as_str).unwrap_or("").to_string();
+        let code = c
+            .get("code")
+            .and_then(Value::as_str)
+            .unwrap_or("")
+            .to_string();
         let silent = c.get("silent").and_then(Value::as_bool).unwrap_or(false);
-        let store = !silent && c.get("store_history").and_then(Value::as_bool).unwrap_or(true);
+        let store = !silent
+            && c.get("store_history")
+                .and_then(Value::as_bool)
+                .unwrap_or(true);
         let count = {
             let mut s = self.state();
             if store {
@@ -386,15 +439,18 @@ impl Kernel {
             }
         };
 
-        let user_expressions = if matches!(result, Ok(_)) {
-            self.user_expressions(c.get("user_expressions"), &msg.header).await
+        let user_expressions = if result.is_ok() {
+            self.user_expressions(c.get("user_expressions"), &msg.header)
+                .await
         } else {
             json!({})
         };
 
         match result {
             Ok(value) => {
-                let plain = value.as_ref().and_then(|b| b.get("text/plain").map(str::to_string));
+                let plain = value
+                    .as_ref()
+                    .and_then(|b| b.get("text/plain").map(str::to_string));
                 if let Some(bundle) = value
                     && !silent
                 {

@@ -31,7 +31,11 @@ pub enum KernelspecTarget {
 impl KernelspecTarget {
     /// The `kernels` folder this target stands for.
     pub fn kernels_dir(&self) -> Result<PathBuf, KernelError> {
-        let env = |k: &str| std::env::var_os(k).filter(|v| !v.is_empty()).map(PathBuf::from);
+        let env = |k: &str| {
+            std::env::var_os(k)
+                .filter(|v| !v.is_empty())
+                .map(PathBuf::from)
+        };
         let base = match self {
             KernelspecTarget::Prefix(dir) => dir.join("share").join("jupyter"),
             KernelspecTarget::SysPrefix => env("VIRTUAL_ENV")
@@ -54,10 +58,17 @@ impl KernelspecTarget {
 
 /// jupyter_core's per-user data folder for this platform.
 fn user_data_dir() -> Result<PathBuf, KernelError> {
-    let env = |k: &str| std::env::var_os(k).filter(|v| !v.is_empty()).map(PathBuf::from);
-    let missing = |what: &str| KernelError::Spec(format!("expected {what} to be set, found nothing"));
+    let env = |k: &str| {
+        std::env::var_os(k)
+            .filter(|v| !v.is_empty())
+            .map(PathBuf::from)
+    };
+    let missing =
+        |what: &str| KernelError::Spec(format!("expected {what} to be set, found nothing"));
     if cfg!(windows) {
-        return Ok(env("APPDATA").ok_or_else(|| missing("APPDATA"))?.join("jupyter"));
+        return Ok(env("APPDATA")
+            .ok_or_else(|| missing("APPDATA"))?
+            .join("jupyter"));
     }
     let home = env("HOME").ok_or_else(|| missing("HOME"))?;
     if cfg!(target_os = "macos") {
@@ -155,7 +166,12 @@ mod tests {
 
     #[test]
     fn kernel_json_has_the_launch_fields() {
-        let text = kernel_json(&["gb".into(), "kernel".into(), "run".into(), "{connection_file}".into()]);
+        let text = kernel_json(&[
+            "gb".into(),
+            "kernel".into(),
+            "run".into(),
+            "{connection_file}".into(),
+        ]);
         let v: serde_json::Value = serde_json::from_str(&text).unwrap();
         assert_eq!(v["language"], "rhai");
         assert_eq!(v["interrupt_mode"], "message");
@@ -168,7 +184,12 @@ mod tests {
         let target = KernelspecTarget::Prefix(tmp.path().to_path_buf());
         let dir = install_kernelspec_with(target.clone(), &["x".into()]).unwrap();
         assert_eq!(dir, tmp.path().join("share/jupyter/kernels/gaugebook"));
-        for f in ["kernel.json", "logo-svg.svg", "logo-32x32.png", "logo-64x64.png"] {
+        for f in [
+            "kernel.json",
+            "logo-svg.svg",
+            "logo-32x32.png",
+            "logo-64x64.png",
+        ] {
             assert!(dir.join(f).is_file(), "{f}");
         }
         assert!(uninstall_kernelspec(target.clone()).unwrap());

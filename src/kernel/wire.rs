@@ -251,7 +251,7 @@ fn hex(bytes: &[u8]) -> String {
 }
 
 fn unhex(text: &[u8]) -> Option<Vec<u8>> {
-    if text.is_empty() || text.len() % 2 != 0 {
+    if text.is_empty() || !text.len().is_multiple_of(2) {
         return None;
     }
     let digit = |c: u8| (c as char).to_digit(16).map(|d| d as u8);
@@ -337,7 +337,10 @@ mod tests {
     fn forged_signature_is_rejected() {
         let mut s = Signer::new(b"secret");
         let mut frames = sample(&Signer::new(b"other key"));
-        assert!(matches!(s.decode(frames.clone()), Err(Rejection::BadSignature)));
+        assert!(matches!(
+            s.decode(frames.clone()),
+            Err(Rejection::BadSignature)
+        ));
         frames[2] = Vec::new();
         assert!(matches!(s.decode(frames), Err(Rejection::BadSignature)));
     }
