@@ -22,8 +22,12 @@ mod error;
 pub mod units;
 
 pub use display::{MimeBundle, ToMime, html_escape};
-pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
+pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
+
+// Scripting: the Rhai surface, sessions, runner support (feature `script`).
+#[cfg(feature = "script")]
+pub mod script;
 
 #[cfg(feature = "cli")]
 pub mod cli;
