@@ -21,8 +21,19 @@ mod display;
 mod error;
 pub mod units;
 
+// Spring elements, materials, layouts and check-weighing (issue 5).
+mod material;
+mod spring;
+
 pub use display::{MimeBundle, ToMime, html_escape};
-pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
+pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
+// Spring elements, materials, layouts and check-weighing (issue 5).
+pub use material::{Material, material, materials};
+pub use spring::{
+    AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
+    Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
+    SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
+};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
 #[cfg(feature = "cli")]
