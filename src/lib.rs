@@ -29,7 +29,9 @@ pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError}
 mod bridge;
 mod gauge;
 pub use bridge::{
-    Arm, ArmId, Arrangement, Excitation, StrainInverse, Trim, TrimKind, WheatstoneBridge,
+    Arm, ArmId, Arrangement, COPPER_RESISTIVITY, COPPER_TEMPERATURE_COEFFICIENT, Excitation,
+    GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
+    StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
 };
 pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
 
