@@ -34,5 +34,15 @@ pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
+// Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
+mod bridge;
+mod gauge;
+pub use bridge::{
+    Arm, ArmId, Arrangement, COPPER_RESISTIVITY, COPPER_TEMPERATURE_COEFFICIENT, Excitation,
+    GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
+    StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
+};
+pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
+
 #[cfg(feature = "cli")]
 pub mod cli;
