@@ -21,20 +21,39 @@ mod display;
 mod error;
 pub mod units;
 
-// Spring elements, materials, layouts and check-weighing (issue 5).
-mod material;
-mod spring;
+// Signal processing, statistics and fatigue counting (issue 6).
+mod signal;
+pub use signal::{
+    Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, MAX_FILTER_ORDER, Ramp, RangeBin,
+    SnCurve, SosFilter, StreamingFilter, Summary, counts_by_range, decimate, decimation_filter,
+    find_holds, find_ramps, miner_damage, moving_average, rainflow_cycles, range_histogram,
+    resample_linear, reversals, rising_crossings, summarize, summarize_windows, uniform_times,
+};
 
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
+
 // Spring elements, materials, layouts and check-weighing (issue 5).
+mod material;
+mod spring;
 pub use material::{Material, material, materials};
 pub use spring::{
     AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
     Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
     SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
 };
+
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
+
+// Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
+mod bridge;
+mod gauge;
+pub use bridge::{
+    Arm, ArmId, Arrangement, COPPER_RESISTIVITY, COPPER_TEMPERATURE_COEFFICIENT, Excitation,
+    GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
+    StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
+};
+pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
 
 #[cfg(feature = "cli")]
 pub mod cli;

@@ -1,3 +1,6 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
+mod bridge;
 mod common;
+mod gauge;
+mod signal;
