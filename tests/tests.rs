@@ -4,3 +4,4 @@ mod bridge;
 mod common;
 mod gauge;
 mod signal;
+mod spring;

@@ -50,7 +50,7 @@ pub(crate) enum Section {
     /// Solid (inner 0) or hollow circle.
     Circle { outer: f64, inner: f64 },
     /// Symmetric I-section: depth h, flange width bf, flange thickness tf, web thickness tw.
-    ISection { h: f64, bf: f64, tf: f64, tw: f64 },
+    IBeam { h: f64, bf: f64, tf: f64, tw: f64 },
 }
 
 impl Section {
@@ -59,7 +59,7 @@ impl Section {
             Section::Rectangle { b, h } => b * h,
             Section::Tube { b, h, t } => b * h - (b - 2.0 * t) * (h - 2.0 * t),
             Section::Circle { outer, inner } => PI / 4.0 * (outer * outer - inner * inner),
-            Section::ISection { h, bf, tf, tw } => 2.0 * bf * tf + (h - 2.0 * tf) * tw,
+            Section::IBeam { h, bf, tf, tw } => 2.0 * bf * tf + (h - 2.0 * tf) * tw,
         }
     }
 
@@ -71,7 +71,7 @@ impl Section {
                 (b * h.powi(3) - (b - 2.0 * t) * (h - 2.0 * t).powi(3)) / 12.0
             }
             Section::Circle { outer, inner } => PI / 64.0 * (outer.powi(4) - inner.powi(4)),
-            Section::ISection { h, bf, tf, tw } => {
+            Section::IBeam { h, bf, tf, tw } => {
                 (bf * h.powi(3) - (bf - tw) * (h - 2.0 * tf).powi(3)) / 12.0
             }
         }
@@ -85,7 +85,7 @@ impl Section {
                 (h * b.powi(3) - (h - 2.0 * t) * (b - 2.0 * t).powi(3)) / 12.0
             }
             Section::Circle { .. } => self.iyy(),
-            Section::ISection { h, bf, tf, tw } => {
+            Section::IBeam { h, bf, tf, tw } => {
                 (2.0 * tf * bf.powi(3) + (h - 2.0 * tf) * tw.powi(3)) / 12.0
             }
         }
@@ -104,7 +104,7 @@ impl Section {
                 4.0 * am * am * t / (2.0 * ((b - t) + (h - t)))
             }
             Section::Circle { outer, inner } => PI / 32.0 * (outer.powi(4) - inner.powi(4)),
-            Section::ISection { h, bf, tf, tw } => {
+            Section::IBeam { h, bf, tf, tw } => {
                 (2.0 * bf * tf.powi(3) + (h - 2.0 * tf) * tw.powi(3)) / 3.0
             }
         }
@@ -174,7 +174,7 @@ impl Section {
                 }
                 Face::Round(_) => Err(not_round()),
             },
-            Section::ISection { h, bf, tf, tw } => match face {
+            Section::IBeam { h, bf, tf, tw } => match face {
                 Face::PlusZ => {
                     check(half(bf), "top flange")?;
                     Ok(Point {
@@ -238,7 +238,7 @@ impl Section {
                 face_pts(Face::PlusY, h / 2.0);
                 face_pts(Face::MinusY, h / 2.0);
             }
-            Section::ISection { h, bf, tf, .. } => {
+            Section::IBeam { h, bf, tf, .. } => {
                 face_pts(Face::PlusZ, bf / 2.0);
                 face_pts(Face::MinusZ, bf / 2.0);
                 face_pts(Face::PlusY, h / 2.0 - tf);
@@ -290,7 +290,7 @@ impl Section {
                     project(0.0, txz)
                 }
             }
-            Section::ISection { h, bf, tf, tw } => {
+            Section::IBeam { h, bf, tf, tw } => {
                 let (iy, iz) = (self.iyy(), self.izz());
                 if p.phi.sin().abs() > 0.5 {
                     // Flange outer surface: shear flow from the tips along y.
@@ -317,7 +317,7 @@ impl Section {
         match *self {
             Section::Circle { outer, .. } => -t * (outer / 2.0) / self.torsion_constant(),
             Section::Tube { b, h, t: wall } => -t / (2.0 * (b - wall) * (h - wall) * wall),
-            Section::ISection { tf, tw, .. } => {
+            Section::IBeam { tf, tw, .. } => {
                 let local = if p.phi.sin().abs() > 0.5 { tf } else { tw };
                 -t * local / self.torsion_constant()
             }
@@ -452,7 +452,7 @@ mod tests {
             inner: 0.0,
         };
         assert!((tube.torsion_constant() - 2.0 * tube.iyy()).abs() < 1e-20);
-        let i = Section::ISection {
+        let i = Section::IBeam {
             h: 0.05,
             bf: 0.02,
             tf: 0.025,

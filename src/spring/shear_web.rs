@@ -95,7 +95,7 @@ impl ShearWeb {
             h,
             l - h,
         )?;
-        let section = Section::ISection { h, bf, tf, tw };
+        let section = Section::IBeam { h, bf, tf, tw };
         Ok(ShearWeb {
             bar: Bar {
                 section,
@@ -120,7 +120,7 @@ impl ShearWeb {
     /// ```
     pub fn neutral_axis_shear_per_newton(&self) -> f64 {
         match self.bar.section {
-            Section::ISection { h, bf, tf, tw } => {
+            Section::IBeam { h, bf, tf, tw } => {
                 let hw = h / 2.0 - tf;
                 let q = bf * tf * (h - tf) / 2.0 + tw * hw * hw / 2.0;
                 q / (self.bar.section.iyy() * tw)
@@ -163,7 +163,7 @@ impl SpringElement for ShearWeb {
         let g = self.bar.material.shear_modulus().get::<pascal>();
         let l = self.bar.length;
         let a_web = match self.bar.section {
-            Section::ISection { h, tf, tw, .. } => (h - 2.0 * tf) * tw,
+            Section::IBeam { h, tf, tw, .. } => (h - 2.0 * tf) * tw,
             _ => f64::NAN,
         };
         Stiffness::Translational(
