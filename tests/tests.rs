@@ -3,3 +3,4 @@
 mod bridge;
 mod common;
 mod gauge;
+mod rosette;
