@@ -4,3 +4,4 @@ mod bridge;
 mod common;
 mod gauge;
 mod rosette;
+mod signal;
