@@ -3,5 +3,6 @@
 mod bridge;
 mod common;
 mod gauge;
+mod rosette;
 mod signal;
 mod spring;
