@@ -17,10 +17,15 @@
 
 #![warn(missing_docs)]
 
+mod calib;
 mod display;
 mod error;
 pub mod units;
 
+// calibration, standards and uncertainty (issue 7)
+pub use calib::{
+    CalibrationPoint, CalibrationRun, Direction, Fit, FitModel, LoadKind, Series,
+};
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
