@@ -24,10 +24,11 @@ pub mod units;
 
 // calibration, standards and uncertainty (issue 7)
 pub use calib::{
-    CalibrationPoint, CalibrationRun, Direction, Fit, FitModel, LoadKind, Series,
+    CalibrationPoint, CalibrationRun, Characterisation, CharacteriseOptions, Direction, Figure,
+    Fit, FitModel, Hold, Line, LoadKind, ReferenceLine, Series, tc_span, tc_zero,
 };
 pub use display::{MimeBundle, ToMime, html_escape};
-pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
+pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
 #[cfg(feature = "cli")]

@@ -65,8 +65,16 @@ fn strd_pontius() {
     let f = Fit::new(&x, &y, FitModel::Polynomial(2)).unwrap();
     check(
         &f,
-        &[0.673565789473684E-03, 0.732059160401003E-06, -0.316081871345029E-14],
-        &[0.107938612033077E-03, 0.157817399981659E-09, 0.486652849992036E-16],
+        &[
+            0.673565789473684E-03,
+            0.732059160401003E-06,
+            -0.316081871345029E-14,
+        ],
+        &[
+            0.107938612033077E-03,
+            0.157817399981659E-09,
+            0.486652849992036E-16,
+        ],
         0.205177424076185E-03,
         0.999999900178537,
         1e-9,
@@ -166,7 +174,11 @@ fn strd_wampler3() {
         3369180.,
     ];
     let sd = [
-        2152.32624678170, 2363.55173469681, 779.343524331583, 101.475507550350, 5.64566512170752,
+        2152.32624678170,
+        2363.55173469681,
+        779.343524331583,
+        101.475507550350,
+        5.64566512170752,
         0.112324854679312,
     ];
     wampler_check(&y, &sd, 2360.14502379268, 0.999995559025820);
@@ -177,11 +189,15 @@ fn strd_wampler3() {
 fn strd_wampler4() {
     let y = [
         75901.0, -204794.0, 204863.0, -204436.0, 253665.0, -200894.0, 214131.0, -185192.0,
-        221249.0, -138370.0, 315911.0, -27644.0, 455253.0, 197434.0, 783995.0, 608816.0,
-        1370781.0, 1303798.0, 2205519.0, 2408860.0, 3444321.0,
+        221249.0, -138370.0, 315911.0, -27644.0, 455253.0, 197434.0, 783995.0, 608816.0, 1370781.0,
+        1303798.0, 2205519.0, 2408860.0, 3444321.0,
     ];
     let sd = [
-        215232.624678170, 236355.173469681, 77934.3524331583, 10147.5507550350, 564.566512170752,
+        215232.624678170,
+        236355.173469681,
+        77934.3524331583,
+        10147.5507550350,
+        564.566512170752,
         11.2324854679312,
     ];
     wampler_check(&y, &sd, 236014.502379268, 0.957478440825662);
@@ -191,12 +207,34 @@ fn strd_wampler4() {
 #[test]
 fn strd_wampler5() {
     let y = [
-        7590001.0, -20479994.0, 20480063.0, -20479636.0, 25231365.0, -20476094.0, 20489331.0,
-        -20460392.0, 18417449.0, -20413570.0, 20591111.0, -20302844.0, 18651453.0, -20077766.0,
-        21059195.0, -19666384.0, 26348481.0, -18971402.0, 22480719.0, -17866340.0, 10958421.0,
+        7590001.0,
+        -20479994.0,
+        20480063.0,
+        -20479636.0,
+        25231365.0,
+        -20476094.0,
+        20489331.0,
+        -20460392.0,
+        18417449.0,
+        -20413570.0,
+        20591111.0,
+        -20302844.0,
+        18651453.0,
+        -20077766.0,
+        21059195.0,
+        -19666384.0,
+        26348481.0,
+        -18971402.0,
+        22480719.0,
+        -17866340.0,
+        10958421.0,
     ];
     let sd = [
-        21523262.4678170, 23635517.3469681, 7793435.24331583, 1014755.07550350, 56456.6512170752,
+        21523262.4678170,
+        23635517.3469681,
+        7793435.24331583,
+        1014755.07550350,
+        56456.6512170752,
         1123.24854679312,
     ];
     wampler_check(&y, &sd, 23601450.2379268, 0.224668921574940E-02);
@@ -210,6 +248,98 @@ fn pontius_rescaled_is_stable() {
     let xs: Vec<f64> = x.iter().map(|v| v * 1e6).collect();
     let f = Fit::new(&xs, &y, FitModel::Polynomial(2)).unwrap();
     assert_close(f.coefficients()[1], 0.732059160401003E-06 * 1e-6, 1e-9, 0.0);
-    assert_close(f.coefficients()[2], -0.316081871345029E-14 * 1e-12, 1e-9, 0.0);
+    assert_close(
+        f.coefficients()[2],
+        -0.316081871345029E-14 * 1e-12,
+        1e-9,
+        0.0,
+    );
     assert_close(f.residual_sd(), 0.205177424076185E-03, 1e-9, 0.0);
+}
+
+mod synthetic {
+    //! Round trips: a synthetic cell with known nonlinearity, hysteresis, repeatability and zero
+    //! return (closed-form values) returns them.
+    use crate::common::assert_close;
+    use gaugebook::{
+        CalibrationRun, Characterisation, CharacteriseOptions, Direction, Hold, LoadKind,
+    };
+
+    const CAP: f64 = 10_000.0; // N
+    const RO: f64 = 2.0; // mV/V
+    const H: f64 = 0.002; // mV/V: bump height at mid-span (0.1 % RO)
+    const ETA: f64 = 0.001; // mV/V: hysteresis at mid-span (0.05 % RO)
+
+    fn asc(x: f64) -> f64 {
+        RO * x / CAP + 4.0 * H * (x / CAP) * (1.0 - x / CAP)
+    }
+
+    fn desc(x: f64) -> f64 {
+        asc(x) + ETA * (std::f64::consts::PI * x / CAP).sin()
+    }
+
+    fn run(repeat_offset: f64) -> CalibrationRun {
+        let up: Vec<f64> = (0..=10).map(|i| i as f64 * 1000.0).collect();
+        let down: Vec<f64> = up.iter().rev().copied().collect();
+        let mut r = CalibrationRun::new(LoadKind::Force, "mV/V");
+        let y: Vec<f64> = up.iter().map(|&x| asc(x)).collect();
+        r.push_series(&up, &y, Direction::Ascending, 0.0).unwrap();
+        // A repeat at the same rotation reading higher by `repeat_offset` at capacity only.
+        let y2: Vec<f64> =
+            up.iter().map(|&x| asc(x) + if x == CAP { repeat_offset } else { 0.0 }).collect();
+        r.push_series(&up, &y2, Direction::Ascending, 0.0).unwrap();
+        let yd: Vec<f64> = down.iter().map(|&x| desc(x)).collect();
+        let mut yd = yd;
+        *yd.last_mut().unwrap() += 0.0004; // zero return 0.02 % RO
+        r.push_series(&down, &yd, Direction::Descending, 0.0).unwrap();
+        r
+    }
+
+    #[test]
+    fn known_figures_come_back() {
+        let c = Characterisation::from_run(&run(0.0), CharacteriseOptions::new(CAP)).unwrap();
+        assert_close(c.rated_output, RO, 1e-12, 0.0);
+        assert_close(c.sensitivity, RO / CAP, 1e-12, 0.0);
+        // Terminal nonlinearity = bump height H = 0.1 % RO = 10 N.
+        assert_close(c.nonlinearity_terminal.percent_ro, 0.1, 1e-9, 0.0);
+        assert_close(c.nonlinearity_terminal.load, 10.0, 1e-9, 0.0);
+        // Minimax: a symmetric bump peaking at mid-span gives H/2 (Chebyshev alternation).
+        assert_close(c.nonlinearity_minimax.percent_ro, 0.05, 1e-9, 0.0);
+        assert!(c.nonlinearity_least_squares.percent_ro >= c.nonlinearity_minimax.percent_ro);
+        assert!(c.nonlinearity_least_squares.percent_ro <= c.nonlinearity_terminal.percent_ro);
+        // Hysteresis: ETA at mid-span = 0.05 % RO; the zero step adds 0.0004 there.
+        assert_close(c.hysteresis.percent_ro, 0.05, 1e-9, 0.0);
+        assert_close(c.non_repeatability.percent_ro, 0.0, 0.0, 1e-12);
+        let zr = c.zero_return.unwrap();
+        assert_close(zr.percent_ro, 0.02, 1e-9, 0.0);
+        // Combined error: largest of asc bump (H) and desc deviation (H + ETA) from terminal.
+        assert_close(c.combined_error.percent_ro, 0.15, 1e-9, 0.0);
+    }
+
+    #[test]
+    fn repeat_spread_is_non_repeatability() {
+        let c = Characterisation::from_run(&run(0.0006), CharacteriseOptions::new(CAP)).unwrap();
+        // The repeat also lifts the mean at capacity by half the offset, so RO = 2.0003 mV/V.
+        assert_close(c.non_repeatability.percent_ro, 0.0006 / (RO + 0.0003) * 100.0, 1e-9, 0.0);
+    }
+
+    #[test]
+    fn creep_and_recovery() {
+        // Exponential creep to 0.03 % RO with τ = 300 s; a 30 min (1800 s) hold.
+        let t: Vec<f64> = (0..=180).map(|i| i as f64 * 10.0).collect();
+        let y: Vec<f64> = t.iter().map(|&s| RO + 0.0006 * (1.0 - (-s / 300.0).exp())).collect();
+        let h = Hold::new(&t, &y).unwrap();
+        let f = h.creep(0.0, 1800.0, RO, CAP).unwrap();
+        assert_close(f.percent_ro, 0.03 * (1.0 - (-6.0f64).exp()), 1e-9, 0.0);
+        let rec = Hold::new(&t, &y.iter().map(|v| RO + 0.0006 - v).collect::<Vec<_>>()).unwrap();
+        assert_close(rec.creep(0.0, 1800.0, RO, CAP).unwrap().percent_ro, -f.percent_ro, 1e-9, 0.0);
+    }
+
+    #[test]
+    fn missing_capacity_point_is_an_error() {
+        let mut r = CalibrationRun::new(LoadKind::Force, "mV/V");
+        r.push_series(&[0.0, 1.0, 2.0], &[0.0, 1.0, 2.0], Direction::Ascending, 0.0).unwrap();
+        let e = Characterisation::from_run(&r, CharacteriseOptions::new(5.0)).unwrap_err();
+        assert!(e.to_string().contains("capacity 5 N"), "{e}");
+    }
 }

@@ -104,7 +104,11 @@ impl Fit {
         }
         let d = model.degree();
         if !(1..=5).contains(&d) {
-            return Err(PhysicsError::invalid("polynomial degree", d, "a degree from 1 to 5"));
+            return Err(PhysicsError::invalid(
+                "polynomial degree",
+                d,
+                "a degree from 1 to 5",
+            ));
         }
         let p = model.parameters();
         let n = x.len();
@@ -135,7 +139,11 @@ impl Fit {
             ));
         }
         // Powers of t present in the model: 0..=d, or just 1 for a line through zero.
-        let powers: Vec<usize> = if model.has_intercept() { (0..=d).collect() } else { vec![1] };
+        let powers: Vec<usize> = if model.has_intercept() {
+            (0..=d).collect()
+        } else {
+            vec![1]
+        };
         let mut a: Vec<Vec<f64>> = (0..n)
             .map(|i| {
                 let t = (x[i] - centre) / scale;
@@ -148,8 +156,10 @@ impl Fit {
         // Residuals from the original data, not from the transformed right-hand side, so they
         // are exactly y − ŷ.
         let t_coefficients = expand(&powers, &coef_t, d);
-        let fitted: Vec<f64> =
-            x.iter().map(|&xi| horner(&t_coefficients, (xi - centre) / scale)).collect();
+        let fitted: Vec<f64> = x
+            .iter()
+            .map(|&xi| horner(&t_coefficients, (xi - centre) / scale))
+            .collect();
         let residuals: Vec<f64> = y.iter().zip(&fitted).map(|(yi, fi)| yi - fi).collect();
         let dof = n - p;
         let sse: f64 = residuals.iter().map(|e| e * e).sum();
@@ -168,14 +178,15 @@ impl Fit {
         let mut cov_t = vec![vec![0.0; p]; p];
         for i in 0..p {
             for j in 0..p {
-                cov_t[i][j] = (0..p).map(|k| rinv[i][k] * rinv[j][k]).sum::<f64>()
-                    * residual_sd.powi(2);
+                cov_t[i][j] =
+                    (0..p).map(|k| rinv[i][k] * rinv[j][k]).sum::<f64>() * residual_sd.powi(2);
             }
         }
         // Map t-basis parameters to x-basis coefficients: x-coefficient m = Σ_k T[m][k] θ_k.
         let tmat = t_to_x(&powers, d, centre, scale);
-        let coefficients: Vec<f64> =
-            (0..=d).map(|m| (0..p).map(|k| tmat[m][k] * coef_t[k]).sum()).collect();
+        let coefficients: Vec<f64> = (0..=d)
+            .map(|m| (0..p).map(|k| tmat[m][k] * coef_t[k]).sum())
+            .collect();
         let mut covariance = vec![vec![0.0; d + 1]; d + 1];
         for m in 0..=d {
             for l in 0..=d {
@@ -273,8 +284,13 @@ impl Fit {
     /// ```
     pub fn slope(&self, x: f64) -> f64 {
         let t = (x - self.centre) / self.scale;
-        let d: Vec<f64> =
-            self.t_coefficients.iter().enumerate().skip(1).map(|(k, c)| k as f64 * c).collect();
+        let d: Vec<f64> = self
+            .t_coefficients
+            .iter()
+            .enumerate()
+            .skip(1)
+            .map(|(k, c)| k as f64 * c)
+            .collect();
         horner(&d, t) / self.scale
     }
 
@@ -324,7 +340,11 @@ impl Fit {
             }
             let d = self.slope(x);
             let newton = x - f / d;
-            x = if d != 0.0 && newton > lo && newton < hi { newton } else { 0.5 * (lo + hi) };
+            x = if d != 0.0 && newton > lo && newton < hi {
+                newton
+            } else {
+                0.5 * (lo + hi)
+            };
             if (hi - lo).abs() <= 4.0 * f64::EPSILON * x.abs().max(span)
                 || (f / d).abs() <= 2.0 * f64::EPSILON * x.abs().max(span * 1e-3)
             {
@@ -353,7 +373,9 @@ fn householder_qr(
         if norm <= 1e-13 * first_norm * (n as f64) {
             return Err(PhysicsError::Numerical {
                 what: "least-squares fit".into(),
-                reason: format!("design matrix is rank deficient at power {k}: too few distinct x values for the degree"),
+                reason: format!(
+                    "design matrix is rank deficient at power {k}: too few distinct x values for the degree"
+                ),
             });
         }
         let alpha = if a[k][k] > 0.0 { -norm } else { norm };
@@ -373,7 +395,9 @@ fn householder_qr(
             b[i] -= f * v[i - k];
         }
     }
-    Ok((0..p).map(|i| (0..p).map(|j| if j >= i { a[i][j] } else { 0.0 }).collect()).collect())
+    Ok((0..p)
+        .map(|i| (0..p).map(|j| if j >= i { a[i][j] } else { 0.0 }).collect())
+        .collect())
 }
 
 fn back_substitute(r: &[Vec<f64>], b: &[f64]) -> Vec<f64> {
@@ -436,7 +460,10 @@ mod tests {
     fn exact_cubic_round_trip() {
         // Closed-form identity: data on an exact cubic are fitted exactly and inverted exactly.
         let x: Vec<f64> = (0..10).map(|i| i as f64 * 1000.0).collect();
-        let y: Vec<f64> = x.iter().map(|&v| 0.1 + 2e-4 * v - 3e-9 * v * v + 1e-14 * v.powi(3)).collect();
+        let y: Vec<f64> = x
+            .iter()
+            .map(|&v| 0.1 + 2e-4 * v - 3e-9 * v * v + 1e-14 * v.powi(3))
+            .collect();
         let f = Fit::new(&x, &y, FitModel::Polynomial(3)).unwrap();
         for &xi in &x[1..] {
             let back = f.inverse(f.eval(xi)).unwrap();
@@ -447,7 +474,11 @@ mod tests {
 
     #[test]
     fn rank_deficient() {
-        let e = Fit::new(&[1.0, 1.0, 2.0, 2.0], &[0.0, 0.0, 1.0, 1.0], FitModel::Polynomial(2));
+        let e = Fit::new(
+            &[1.0, 1.0, 2.0, 2.0],
+            &[0.0, 0.0, 1.0, 1.0],
+            FitModel::Polynomial(2),
+        );
         assert!(matches!(e, Err(PhysicsError::Numerical { .. })), "{e:?}");
     }
 

@@ -1,10 +1,14 @@
 //! Calibration: points and series, fitted curves, characteristic figures and report tables.
 //!
-//! The layer below the standards ([`crate::standards`]-style class evaluations live in
-//! `src/standards/`) and beside the uncertainty budgets (`src/uncertainty/`).
+//! Class evaluations against published standards live in `src/standards/`; uncertainty budgets
+//! and Monte Carlo in `src/uncertainty/`.
 
+mod figures;
 mod fit;
 mod points;
 
+pub use figures::{
+    Characterisation, CharacteriseOptions, Figure, Hold, Line, ReferenceLine, tc_span, tc_zero,
+};
 pub use fit::{Fit, FitModel};
 pub use points::{CalibrationPoint, CalibrationRun, Direction, LoadKind, Series};

@@ -112,7 +112,10 @@ impl Series {
     /// # Ok::<(), gaugebook::PhysicsError>(())
     /// ```
     pub fn indication_at(&self, load: f64, tol: f64) -> Option<f64> {
-        self.points.iter().find(|p| (p.load - load).abs() <= tol).map(|p| p.indication)
+        self.points
+            .iter()
+            .find(|p| (p.load - load).abs() <= tol)
+            .map(|p| p.indication)
     }
 }
 
@@ -140,7 +143,11 @@ pub struct CalibrationRun {
 impl CalibrationRun {
     /// An empty run with loads of `load_kind` and indications labelled `indication_unit`.
     pub fn new(load_kind: LoadKind, indication_unit: &str) -> CalibrationRun {
-        CalibrationRun { load_kind, indication_unit: indication_unit.to_string(), series: vec![] }
+        CalibrationRun {
+            load_kind,
+            indication_unit: indication_unit.to_string(),
+            series: vec![],
+        }
     }
 
     /// An empty run of a load cell: force against bridge output in V/V.
@@ -165,7 +172,10 @@ impl CalibrationRun {
 
     /// Every point of every series.
     pub fn points(&self) -> Vec<CalibrationPoint> {
-        self.series.iter().flat_map(|s| s.points.iter().copied()).collect()
+        self.series
+            .iter()
+            .flat_map(|s| s.points.iter().copied())
+            .collect()
     }
 
     /// The series in one direction.
@@ -179,7 +189,10 @@ impl CalibrationRun {
     /// # Ok::<(), gaugebook::PhysicsError>(())
     /// ```
     pub fn series_in(&self, direction: Direction) -> Vec<&Series> {
-        self.series.iter().filter(|s| s.direction == direction).collect()
+        self.series
+            .iter()
+            .filter(|s| s.direction == direction)
+            .collect()
     }
 
     /// Appends one series of plain numbers: loads in SI (N or N·m) and indications in the run's
@@ -217,7 +230,11 @@ impl CalibrationRun {
         let unit = self.load_kind.si_unit();
         for (i, (&l, &r)) in loads.iter().zip(indications).enumerate() {
             crate::check_finite(&format!("load at point {i}"), l, unit)?;
-            crate::check_finite(&format!("indication at point {i}"), r, &self.indication_unit)?;
+            crate::check_finite(
+                &format!("indication at point {i}"),
+                r,
+                &self.indication_unit,
+            )?;
         }
         crate::check_finite("mounting rotation", rotation_deg, "°")?;
         for (i, w) in loads.windows(2).enumerate() {
@@ -233,7 +250,10 @@ impl CalibrationRun {
                 return Err(PhysicsError::invalid(
                     format!("load sequence at point {}", i + 1),
                     format!("{} {unit} after {} {unit}", w[1], w[0]),
-                    format!("{want} loads in a {} series", want.split(' ').nth(1).unwrap_or("")),
+                    format!(
+                        "{want} loads in a {} series",
+                        want.split(' ').nth(1).unwrap_or("")
+                    ),
                 ));
             }
         }
@@ -249,7 +269,11 @@ impl CalibrationRun {
                 rotation_deg,
             })
             .collect();
-        self.series.push(Series { direction, rotation_deg, points });
+        self.series.push(Series {
+            direction,
+            rotation_deg,
+            points,
+        });
         Ok(series)
     }
 
@@ -306,7 +330,11 @@ impl CalibrationRun {
         if self.load_kind != kind || self.indication_unit != unit {
             return Err(PhysicsError::Mismatch {
                 what: "calibration run units".into(),
-                left: format!("run of {} in {}", self.load_kind.si_unit(), self.indication_unit),
+                left: format!(
+                    "run of {} in {}",
+                    self.load_kind.si_unit(),
+                    self.indication_unit
+                ),
                 right: format!("series of {} in {unit}", kind.si_unit()),
             });
         }
@@ -367,7 +395,9 @@ mod tests {
     #[test]
     fn mismatched_lengths_are_named() {
         let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
-        let e = run.push_series(&[0.0, 1.0], &[0.0], Direction::Ascending, 0.0).unwrap_err();
+        let e = run
+            .push_series(&[0.0, 1.0], &[0.0], Direction::Ascending, 0.0)
+            .unwrap_err();
         assert_eq!(
             e.to_string(),
             "load and indication series lengths do not match: 2 loads versus 1 indications"
@@ -377,20 +407,34 @@ mod tests {
     #[test]
     fn too_few_points() {
         let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
-        let e = run.push_series(&[0.0], &[0.0], Direction::Ascending, 0.0).unwrap_err();
-        assert!(matches!(e, PhysicsError::NotEnoughData { needed: 2, found: 1, .. }));
+        let e = run
+            .push_series(&[0.0], &[0.0], Direction::Ascending, 0.0)
+            .unwrap_err();
+        assert!(matches!(
+            e,
+            PhysicsError::NotEnoughData {
+                needed: 2,
+                found: 1,
+                ..
+            }
+        ));
     }
 
     #[test]
     fn descending_must_decrease() {
         let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
-        let e = run.push_series(&[0.0, 1.0], &[0.0, 1.0], Direction::Descending, 0.0).unwrap_err();
+        let e = run
+            .push_series(&[0.0, 1.0], &[0.0, 1.0], Direction::Descending, 0.0)
+            .unwrap_err();
         assert!(e.to_string().contains("strictly decreasing"), "{e}");
     }
 
     #[test]
     fn nan_rejected() {
         let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
-        assert!(run.push_series(&[0.0, f64::NAN], &[0.0, 1.0], Direction::Ascending, 0.0).is_err());
+        assert!(
+            run.push_series(&[0.0, f64::NAN], &[0.0, 1.0], Direction::Ascending, 0.0)
+                .is_err()
+        );
     }
 }

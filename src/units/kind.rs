@@ -54,9 +54,8 @@ impl Kind {
         match (self, other) {
             (AbsoluteTemperature, AbsoluteTemperature) => None,
             (a, b) if a == b => Some(a),
-            (AbsoluteTemperature, TemperatureInterval) | (TemperatureInterval, AbsoluteTemperature) => {
-                Some(AbsoluteTemperature)
-            }
+            (AbsoluteTemperature, TemperatureInterval)
+            | (TemperatureInterval, AbsoluteTemperature) => Some(AbsoluteTemperature),
             _ => None,
         }
     }

@@ -36,7 +36,12 @@ impl Quantity {
     /// assert_eq!(e.si(), 1e-3);
     /// ```
     pub fn from_si(si: f64, dim: Dimension, kind: Kind) -> Quantity {
-        Quantity { si, dim, kind, unit: None }
+        Quantity {
+            si,
+            dim,
+            kind,
+            unit: None,
+        }
     }
 
     /// A plain dimensionless number.
@@ -70,7 +75,12 @@ impl Quantity {
     /// # Ok::<(), gaugebook::units::UnitError>(())
     /// ```
     pub fn in_unit(value: f64, unit: Arc<Unit>) -> Quantity {
-        Quantity { si: unit.to_si(value), dim: unit.dimension(), kind: unit.kind(), unit: Some(unit) }
+        Quantity {
+            si: unit.to_si(value),
+            dim: unit.dimension(),
+            kind: unit.kind(),
+            unit: Some(unit),
+        }
     }
 
     /// Parses a number followed by a unit: `"350 ohm"`, `"2.5 mV/V"`, `"-40 degC"`.
@@ -90,7 +100,8 @@ impl Quantity {
                     || c == '+'
                     || c == '-'
                     || ((c == 'e' || c == 'E')
-                        && t[i + 1..].starts_with(|d: char| d.is_ascii_digit() || d == '-' || d == '+')))
+                        && t[i + 1..]
+                            .starts_with(|d: char| d.is_ascii_digit() || d == '-' || d == '+')))
             })
             .map(|(i, _)| i)
             .unwrap_or(t.len());
@@ -145,7 +156,12 @@ impl Quantity {
     pub fn to(&self, unit: &str) -> Result<Quantity, UnitError> {
         let u = Unit::parse(unit)?;
         self.check_convertible(&u, unit)?;
-        Ok(Quantity { si: self.si, dim: self.dim, kind: u.kind(), unit: Some(Arc::new(u)) })
+        Ok(Quantity {
+            si: self.si,
+            dim: self.dim,
+            kind: u.kind(),
+            unit: Some(Arc::new(u)),
+        })
     }
 
     /// The number this quantity is in the given unit.
@@ -173,12 +189,19 @@ impl Quantity {
         if self.dim == u.dimension() && kinds_ok {
             Ok(())
         } else {
-            Err(UnitError::NotConvertible { quantity: self.to_string(), unit: text.to_string() })
+            Err(UnitError::NotConvertible {
+                quantity: self.to_string(),
+                unit: text.to_string(),
+            })
         }
     }
 
     fn incompatible(&self, op: &'static str, other: &Quantity) -> UnitError {
-        UnitError::Incompatible { op, left: self.to_string(), right: other.to_string() }
+        UnitError::Incompatible {
+            op,
+            left: self.to_string(),
+            right: other.to_string(),
+        }
     }
 
     /// `self + other`, refused across dimensions or kinds.
@@ -186,8 +209,16 @@ impl Quantity {
         if self.dim != other.dim {
             return Err(self.incompatible("add", other));
         }
-        let kind = self.kind.combine_additive(other.kind).ok_or_else(|| self.incompatible("add", other))?;
-        Ok(Quantity { si: self.si + other.si, dim: self.dim, kind, unit: self.keep_unit(kind, other) })
+        let kind = self
+            .kind
+            .combine_additive(other.kind)
+            .ok_or_else(|| self.incompatible("add", other))?;
+        Ok(Quantity {
+            si: self.si + other.si,
+            dim: self.dim,
+            kind,
+            unit: self.keep_unit(kind, other),
+        })
     }
 
     /// `self - other`; two absolute temperatures give a temperature difference.
@@ -199,7 +230,12 @@ impl Quantity {
             .kind
             .combine_difference(other.kind)
             .ok_or_else(|| self.incompatible("subtract", other))?;
-        Ok(Quantity { si: self.si - other.si, dim: self.dim, kind, unit: self.keep_unit(kind, other) })
+        Ok(Quantity {
+            si: self.si - other.si,
+            dim: self.dim,
+            kind,
+            unit: self.keep_unit(kind, other),
+        })
     }
 
     fn keep_unit(&self, kind: Kind, other: &Quantity) -> Option<Arc<Unit>> {
@@ -248,9 +284,22 @@ impl Quantity {
     /// # Ok::<(), gaugebook::units::UnitError>(())
     /// ```
     pub fn scale(&self, k: f64) -> Quantity {
-        let kind = if self.kind == Kind::AbsoluteTemperature { Kind::Plain } else { self.kind };
-        let unit = if kind == self.kind { self.unit.clone() } else { None };
-        Quantity { si: self.si * k, dim: self.dim, kind, unit }
+        let kind = if self.kind == Kind::AbsoluteTemperature {
+            Kind::Plain
+        } else {
+            self.kind
+        };
+        let unit = if kind == self.kind {
+            self.unit.clone()
+        } else {
+            None
+        };
+        Quantity {
+            si: self.si * k,
+            dim: self.dim,
+            kind,
+            unit,
+        }
     }
 
     /// Integer power.
@@ -278,24 +327,34 @@ impl Quantity {
 
     /// The magnitude.
     pub fn abs(&self) -> Quantity {
-        Quantity { si: self.si.abs(), ..self.clone() }
+        Quantity {
+            si: self.si.abs(),
+            ..self.clone()
+        }
     }
 
     /// Negation; refused for absolute temperatures, whose negative has no meaning.
     pub fn neg(&self) -> Quantity {
-        Quantity { si: -self.si, ..self.clone() }
+        Quantity {
+            si: -self.si,
+            ..self.clone()
+        }
     }
 
     /// Compares two quantities of one dimension and kind.
     pub fn try_cmp(&self, other: &Quantity) -> Result<Ordering, UnitError> {
-        if self.dim != other.dim || self.kind.combine_additive(other.kind) != Some(self.kind) && self.kind != other.kind {
+        if self.dim != other.dim
+            || self.kind.combine_additive(other.kind) != Some(self.kind) && self.kind != other.kind
+        {
             return Err(self.incompatible("compare", other));
         }
-        self.si.partial_cmp(&other.si).ok_or_else(|| UnitError::Undefined {
-            op: "compare",
-            operand: format!("{self} and {other}"),
-            reason: "one of them is not a number".into(),
-        })
+        self.si
+            .partial_cmp(&other.si)
+            .ok_or_else(|| UnitError::Undefined {
+                op: "compare",
+                operand: format!("{self} and {other}"),
+                reason: "one of them is not a number".into(),
+            })
     }
 }
 
@@ -304,7 +363,9 @@ impl fmt::Display for Quantity {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         match &self.unit {
             Some(u) => write!(f, "{} {}", u.from_si(self.si), u.symbol()),
-            None if self.dim.is_dimensionless() && self.kind == Kind::Plain => write!(f, "{}", self.si),
+            None if self.dim.is_dimensionless() && self.kind == Kind::Plain => {
+                write!(f, "{}", self.si)
+            }
             None => write!(f, "{} {}", self.si, self.dim),
         }
     }

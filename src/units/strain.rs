@@ -208,7 +208,10 @@ mod tests {
     #[test]
     fn display_is_short_and_readable() {
         assert_eq!(Strain::from_microstrain(-12.5).to_string(), "-12.5 µε");
-        assert_eq!(OutputRatio::from_mv_per_v(0.4995).to_string(), "0.4995 mV/V");
+        assert_eq!(
+            OutputRatio::from_mv_per_v(0.4995).to_string(),
+            "0.4995 mV/V"
+        );
         assert_eq!(OutputRatio::ZERO.to_string(), "0 mV/V");
     }
 

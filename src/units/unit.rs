@@ -40,7 +40,13 @@ impl Unit {
         dim: Dimension,
         kind: Kind,
     ) -> Unit {
-        Unit { symbol: symbol.into(), factor, offset, dim, kind }
+        Unit {
+            symbol: symbol.into(),
+            factor,
+            offset,
+            dim,
+            kind,
+        }
     }
 
     /// Parses a unit expression.
@@ -90,7 +96,13 @@ impl Unit {
             "ue" => "µε",
             other => other,
         };
-        Ok(Unit { symbol: symbol.to_string(), factor, offset: 0.0, dim, kind })
+        Ok(Unit {
+            symbol: symbol.to_string(),
+            factor,
+            offset: 0.0,
+            dim,
+            kind,
+        })
     }
 
     /// The symbol as displayed (`Ω`, `µε`, `mV/V`).
