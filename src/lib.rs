@@ -20,6 +20,7 @@
 mod calib;
 mod display;
 mod error;
+mod uncertainty;
 pub mod units;
 
 // calibration, standards and uncertainty (issue 7)
@@ -29,6 +30,11 @@ pub use calib::{
 };
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
+pub use uncertainty::{
+    Budget, Contribution, Distribution, Expanded, GumResult, Input, IntervalKind, McResult,
+    MonteCarlo, Validation, coverage_factor, ln_gamma, sample_correlation, student_t_quantile,
+    student_t_two_sided_tail,
+};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
 #[cfg(feature = "cli")]

@@ -285,13 +285,16 @@ mod synthetic {
         let y: Vec<f64> = up.iter().map(|&x| asc(x)).collect();
         r.push_series(&up, &y, Direction::Ascending, 0.0).unwrap();
         // A repeat at the same rotation reading higher by `repeat_offset` at capacity only.
-        let y2: Vec<f64> =
-            up.iter().map(|&x| asc(x) + if x == CAP { repeat_offset } else { 0.0 }).collect();
+        let y2: Vec<f64> = up
+            .iter()
+            .map(|&x| asc(x) + if x == CAP { repeat_offset } else { 0.0 })
+            .collect();
         r.push_series(&up, &y2, Direction::Ascending, 0.0).unwrap();
         let yd: Vec<f64> = down.iter().map(|&x| desc(x)).collect();
         let mut yd = yd;
         *yd.last_mut().unwrap() += 0.0004; // zero return 0.02 % RO
-        r.push_series(&down, &yd, Direction::Descending, 0.0).unwrap();
+        r.push_series(&down, &yd, Direction::Descending, 0.0)
+            .unwrap();
         r
     }
 
@@ -320,25 +323,44 @@ mod synthetic {
     fn repeat_spread_is_non_repeatability() {
         let c = Characterisation::from_run(&run(0.0006), CharacteriseOptions::new(CAP)).unwrap();
         // The repeat also lifts the mean at capacity by half the offset, so RO = 2.0003 mV/V.
-        assert_close(c.non_repeatability.percent_ro, 0.0006 / (RO + 0.0003) * 100.0, 1e-9, 0.0);
+        assert_close(
+            c.non_repeatability.percent_ro,
+            0.0006 / (RO + 0.0003) * 100.0,
+            1e-9,
+            0.0,
+        );
     }
 
     #[test]
     fn creep_and_recovery() {
         // Exponential creep to 0.03 % RO with τ = 300 s; a 30 min (1800 s) hold.
         let t: Vec<f64> = (0..=180).map(|i| i as f64 * 10.0).collect();
-        let y: Vec<f64> = t.iter().map(|&s| RO + 0.0006 * (1.0 - (-s / 300.0).exp())).collect();
+        let y: Vec<f64> = t
+            .iter()
+            .map(|&s| RO + 0.0006 * (1.0 - (-s / 300.0).exp()))
+            .collect();
         let h = Hold::new(&t, &y).unwrap();
         let f = h.creep(0.0, 1800.0, RO, CAP).unwrap();
         assert_close(f.percent_ro, 0.03 * (1.0 - (-6.0f64).exp()), 1e-9, 0.0);
         let rec = Hold::new(&t, &y.iter().map(|v| RO + 0.0006 - v).collect::<Vec<_>>()).unwrap();
-        assert_close(rec.creep(0.0, 1800.0, RO, CAP).unwrap().percent_ro, -f.percent_ro, 1e-9, 0.0);
+        assert_close(
+            rec.creep(0.0, 1800.0, RO, CAP).unwrap().percent_ro,
+            -f.percent_ro,
+            1e-9,
+            0.0,
+        );
     }
 
     #[test]
     fn missing_capacity_point_is_an_error() {
         let mut r = CalibrationRun::new(LoadKind::Force, "mV/V");
-        r.push_series(&[0.0, 1.0, 2.0], &[0.0, 1.0, 2.0], Direction::Ascending, 0.0).unwrap();
+        r.push_series(
+            &[0.0, 1.0, 2.0],
+            &[0.0, 1.0, 2.0],
+            Direction::Ascending,
+            0.0,
+        )
+        .unwrap();
         let e = Characterisation::from_run(&r, CharacteriseOptions::new(5.0)).unwrap_err();
         assert!(e.to_string().contains("capacity 5 N"), "{e}");
     }

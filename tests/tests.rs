@@ -2,3 +2,4 @@
 
 mod calib;
 mod common;
+mod uncertainty;

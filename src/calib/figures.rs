@@ -609,7 +609,10 @@ mod tests {
         // Closed form: the bump 0.05·x(5 − x) sampled at integers peaks at h = 0.3 (x = 2, 3)
         // above the terminal line and is symmetric, so the minimax line is the terminal line
         // raised by h/2 with deviations ±0.15.
-        assert!((c - 0.3).abs() < 1e-12 && (a - 0.15).abs() < 1e-12, "{a} {c}");
+        assert!(
+            (c - 0.3).abs() < 1e-12 && (a - 0.15).abs() < 1e-12,
+            "{a} {c}"
+        );
     }
 
     #[test]
