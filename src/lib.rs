@@ -20,6 +20,7 @@
 mod calib;
 mod display;
 mod error;
+mod standards;
 mod uncertainty;
 pub mod units;
 
@@ -30,6 +31,11 @@ pub use calib::{
 };
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
+pub use standards::{
+    Check, ClassVerdict, E74Result, Iso376Class, Iso376Data, Iso376Limits, Iso376Result,
+    Iso376Step, OimlClass, R60Extras, R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74,
+    evaluate_r60,
+};
 pub use uncertainty::{
     Budget, Contribution, Distribution, Expanded, GumResult, Input, IntervalKind, McResult,
     MonteCarlo, Validation, coverage_factor, ln_gamma, sample_correlation, student_t_quantile,

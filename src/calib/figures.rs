@@ -302,7 +302,7 @@ impl Characterisation {
     /// ```
     /// use gaugebook::{CalibrationRun, Characterisation, CharacteriseOptions, Direction, LoadKind};
     /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
-    /// run.push_series(&[0.0, 500.0], &[0.0, 1.0], Direction::Ascending, 0.0)?;
+    /// run.push_series(&[0.0, 250.0, 500.0], &[0.0, 0.5, 1.0], Direction::Ascending, 0.0)?;
     /// let e = Characterisation::from_run(&run, CharacteriseOptions::new(1000.0)).unwrap_err();
     /// assert!(e.to_string().contains("capacity"));
     /// # Ok::<(), gaugebook::PhysicsError>(())
