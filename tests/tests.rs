@@ -2,4 +2,5 @@
 
 mod calib;
 mod common;
+mod standards;
 mod uncertainty;
