@@ -27,7 +27,8 @@ pub mod units;
 // calibration, standards and uncertainty (issue 7)
 pub use calib::{
     CalibrationPoint, CalibrationRun, Characterisation, CharacteriseOptions, Direction, Figure,
-    Fit, FitModel, Hold, Line, LoadKind, ReferenceLine, Series, tc_span, tc_zero,
+    Fit, FitModel, Hold, Line, LoadKind, ReferenceLine, ReportRow, ReportTable, Series, tc_span,
+    tc_zero,
 };
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};

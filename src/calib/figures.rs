@@ -454,7 +454,9 @@ impl Hold {
                 found: times_s.len(),
             });
         }
-        if times_s.windows(2).any(|w| !(w[1] > w[0])) || times_s.iter().any(|t| !t.is_finite()) {
+        if times_s.windows(2).any(|w| w[1] <= w[0] || w[1].is_nan())
+            || times_s.iter().any(|t| !t.is_finite())
+        {
             return Err(PhysicsError::invalid(
                 "hold times",
                 "not strictly increasing",

@@ -9,6 +9,10 @@
 //! t basis. This reproduces the NIST StRD certified values for Norris, Pontius, NoInt1/2 and
 //! Wampler1–5 (tests/calib.rs).
 
+// Index loops mirror the matrix algebra (Golub & Van Loan's notation) and read better than
+// iterator chains over rows and columns at once.
+#![allow(clippy::needless_range_loop)]
+
 use crate::PhysicsError;
 
 /// The form of a calibration curve.

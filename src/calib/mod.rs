@@ -6,9 +6,11 @@
 mod figures;
 mod fit;
 mod points;
+mod table;
 
 pub use figures::{
     Characterisation, CharacteriseOptions, Figure, Hold, Line, ReferenceLine, tc_span, tc_zero,
 };
 pub use fit::{Fit, FitModel};
 pub use points::{CalibrationPoint, CalibrationRun, Direction, LoadKind, Series};
+pub use table::{ReportRow, ReportTable};

@@ -229,17 +229,17 @@ pub fn classify_iso376(d: &Iso376Data) -> Result<Iso376Result, PhysicsError> {
         }
     }
     for (name, s) in [("X4'", &d.x4_decreasing), ("X6'", &d.x6_decreasing)] {
-        if let Some(s) = s {
-            if s.len() != n {
-                return Err(PhysicsError::Mismatch {
-                    what: format!("series {name} and force step counts"),
-                    left: s.len().to_string(),
-                    right: n.to_string(),
-                });
-            }
+        if let Some(s) = s
+            && s.len() != n
+        {
+            return Err(PhysicsError::Mismatch {
+                what: format!("series {name} and force step counts"),
+                left: s.len().to_string(),
+                right: n.to_string(),
+            });
         }
     }
-    if d.forces.windows(2).any(|w| !(w[1] > w[0])) {
+    if d.forces.windows(2).any(|w| w[1] <= w[0] || w[1].is_nan()) {
         return Err(PhysicsError::invalid(
             "ISO 376 force steps",
             "not strictly increasing",

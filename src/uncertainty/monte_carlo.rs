@@ -12,6 +12,9 @@
 //! c × 10^l, δ = ½ × 10^l; the GUM interval y ± U_p is validated if both end-point differences
 //! from the Monte Carlo interval are at most δ.
 
+// Index loops mirror the Cholesky algebra.
+#![allow(clippy::needless_range_loop)]
+
 use super::distribution::Distribution;
 use super::gum::{Budget, GumResult};
 use crate::PhysicsError;

@@ -15,7 +15,7 @@
 /// assert!((gaugebook::ln_gamma(0.5) - std::f64::consts::PI.sqrt().ln()).abs() < 1e-13);
 /// ```
 pub fn ln_gamma(x: f64) -> f64 {
-    if !(x > 0.0) {
+    if x.is_nan() || x <= 0.0 {
         return f64::NAN;
     }
     let mut z = x;
