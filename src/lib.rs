@@ -17,21 +17,31 @@
 
 #![warn(missing_docs)]
 
-mod calib;
 mod display;
 mod error;
-mod standards;
-mod uncertainty;
 pub mod units;
 
-// calibration, standards and uncertainty (issue 7)
-pub use calib::{
-    CalibrationPoint, CalibrationRun, Characterisation, CharacteriseOptions, Direction, Figure,
-    Fit, FitModel, Hold, Line, LoadKind, ReferenceLine, ReportRow, ReportTable, Series, tc_span,
-    tc_zero,
+// Signal processing, statistics and fatigue counting (issue 6).
+mod signal;
+pub use signal::{
+    Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, MAX_FILTER_ORDER, Ramp, RangeBin,
+    SnCurve, SosFilter, StreamingFilter, Summary, counts_by_range, decimate, decimation_filter,
+    find_holds, find_ramps, miner_damage, moving_average, rainflow_cycles, range_histogram,
+    resample_linear, reversals, rising_crossings, summarize, summarize_windows, uniform_times,
 };
+
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
+
+// Calibration, class evaluation against standards, uncertainty (issue 7).
+mod calib;
+mod standards;
+mod uncertainty;
+pub use calib::{
+    CalibrationPoint, CalibrationRun, Characterisation, CharacteriseOptions, CreepHold, Direction,
+    Figure, Fit, FitModel, Line, LoadKind, ReferenceLine, ReportRow, ReportTable, Series, tc_span,
+    tc_zero,
+};
 pub use standards::{
     Check, ClassVerdict, E74Result, Iso376Class, Iso376Data, Iso376Limits, Iso376Result,
     Iso376Step, OimlClass, R60Extras, R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74,
@@ -43,6 +53,16 @@ pub use uncertainty::{
     student_t_two_sided_tail,
 };
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
+
+// Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
+mod bridge;
+mod gauge;
+pub use bridge::{
+    Arm, ArmId, Arrangement, COPPER_RESISTIVITY, COPPER_TEMPERATURE_COEFFICIENT, Excitation,
+    GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
+    StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
+};
+pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
 
 #[cfg(feature = "cli")]
 pub mod cli;

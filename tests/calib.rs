@@ -262,7 +262,7 @@ mod synthetic {
     //! return (closed-form values) returns them.
     use crate::common::assert_close;
     use gaugebook::{
-        CalibrationRun, Characterisation, CharacteriseOptions, Direction, Hold, LoadKind,
+        CalibrationRun, Characterisation, CharacteriseOptions, CreepHold, Direction, LoadKind,
     };
 
     const CAP: f64 = 10_000.0; // N
@@ -339,10 +339,11 @@ mod synthetic {
             .iter()
             .map(|&s| RO + 0.0006 * (1.0 - (-s / 300.0).exp()))
             .collect();
-        let h = Hold::new(&t, &y).unwrap();
+        let h = CreepHold::new(&t, &y).unwrap();
         let f = h.creep(0.0, 1800.0, RO, CAP).unwrap();
         assert_close(f.percent_ro, 0.03 * (1.0 - (-6.0f64).exp()), 1e-9, 0.0);
-        let rec = Hold::new(&t, &y.iter().map(|v| RO + 0.0006 - v).collect::<Vec<_>>()).unwrap();
+        let rec =
+            CreepHold::new(&t, &y.iter().map(|v| RO + 0.0006 - v).collect::<Vec<_>>()).unwrap();
         assert_close(
             rec.creep(0.0, 1800.0, RO, CAP).unwrap().percent_ro,
             -f.percent_ro,

@@ -4,7 +4,7 @@
 
 use crate::common::assert_close;
 use gaugebook::{
-    CalibrationRun, Direction, Hold, Iso376Class, Iso376Data, LoadKind, OimlClass, R60Extras,
+    CalibrationRun, CreepHold, Direction, Iso376Class, Iso376Data, LoadKind, OimlClass, R60Extras,
     R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74, evaluate_r60,
 };
 
@@ -96,7 +96,7 @@ fn r60_creep_dr_and_temperature() {
     let t = [0.0, 1200.0, 1800.0];
     let y = [s, s + 2e-7 * 0.5 * mpe, s + 2e-7 * 0.6 * mpe];
     let extras = R60Extras {
-        creep: Some(Hold::new(&t, &y).unwrap()),
+        creep: Some(CreepHold::new(&t, &y).unwrap()),
         dead_load_return: Some(0.4 * v),
         min_load_temperature_effect: Some((0.5, 10.0)), // 0.5 N over 10 K: 0.25 N per 5 °C
     };
@@ -120,7 +120,7 @@ fn r60_creep_dr_and_temperature() {
     // Creep 0.2 |MPE| between 20 and 30 min fails the 0.15 limit.
     let y2 = [s, s + 2e-7 * 0.4 * mpe, s + 2e-7 * 0.6 * mpe];
     let bad = R60Extras {
-        creep: Some(Hold::new(&t, &y2).unwrap()),
+        creep: Some(CreepHold::new(&t, &y2).unwrap()),
         ..extras
     };
     let r = evaluate_r60(&cell, &run, &bad).unwrap();

@@ -1,6 +1,9 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
+mod bridge;
 mod calib;
 mod common;
+mod gauge;
+mod signal;
 mod standards;
 mod uncertainty;

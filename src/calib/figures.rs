@@ -425,21 +425,21 @@ impl Characterisation {
 /// Readings taken under constant load (creep) or after its removal (creep recovery).
 ///
 /// ```
-/// use gaugebook::Hold;
-/// let h = Hold::new(&[0.0, 600.0, 1800.0], &[2.0, 2.0006, 2.001])?;
+/// use gaugebook::CreepHold;
+/// let h = CreepHold::new(&[0.0, 600.0, 1800.0], &[2.0, 2.0006, 2.001])?;
 /// assert!((h.change(0.0, 1800.0)? - 0.001).abs() < 1e-12);
 /// # Ok::<(), gaugebook::PhysicsError>(())
 /// ```
 #[derive(Clone, Debug, PartialEq)]
-pub struct Hold {
+pub struct CreepHold {
     times_s: Vec<f64>,
     indications: Vec<f64>,
 }
 
-impl Hold {
+impl CreepHold {
     /// Times in seconds from the moment the load was applied (or removed), strictly increasing,
     /// and the indications at those times.
-    pub fn new(times_s: &[f64], indications: &[f64]) -> Result<Hold, PhysicsError> {
+    pub fn new(times_s: &[f64], indications: &[f64]) -> Result<CreepHold, PhysicsError> {
         if times_s.len() != indications.len() {
             return Err(PhysicsError::Mismatch {
                 what: "hold times and indications lengths".into(),
@@ -463,7 +463,7 @@ impl Hold {
                 "strictly increasing finite times in s",
             ));
         }
-        Ok(Hold {
+        Ok(CreepHold {
             times_s: times_s.to_vec(),
             indications: indications.to_vec(),
         })
@@ -496,8 +496,8 @@ impl Hold {
     /// Creep (or recovery) between two stated times as a [`Figure`].
     ///
     /// ```
-    /// use gaugebook::Hold;
-    /// let h = Hold::new(&[0.0, 1800.0], &[2.0, 2.0005])?;
+    /// use gaugebook::CreepHold;
+    /// let h = CreepHold::new(&[0.0, 1800.0], &[2.0, 2.0005])?;
     /// let f = h.creep(0.0, 1800.0, 2.0, 1000.0)?;
     /// assert!((f.percent_ro - 0.025).abs() < 1e-9);
     /// # Ok::<(), gaugebook::PhysicsError>(())
@@ -619,7 +619,7 @@ mod tests {
 
     #[test]
     fn hold_rejects_out_of_range() {
-        let h = Hold::new(&[0.0, 10.0], &[1.0, 1.0]).unwrap();
+        let h = CreepHold::new(&[0.0, 10.0], &[1.0, 1.0]).unwrap();
         assert!(h.at(11.0).is_err());
     }
 }

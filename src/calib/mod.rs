@@ -9,7 +9,7 @@ mod points;
 mod table;
 
 pub use figures::{
-    Characterisation, CharacteriseOptions, Figure, Hold, Line, ReferenceLine, tc_span, tc_zero,
+    Characterisation, CharacteriseOptions, CreepHold, Figure, Line, ReferenceLine, tc_span, tc_zero,
 };
 pub use fit::{Fit, FitModel};
 pub use points::{CalibrationPoint, CalibrationRun, Direction, LoadKind, Series};

@@ -27,7 +27,7 @@
 //! follows local regulation.
 
 use super::verdict::{Check, ClassVerdict};
-use crate::{CalibrationRun, Direction, Hold, PhysicsError};
+use crate::{CalibrationRun, CreepHold, Direction, PhysicsError};
 
 const STD: &str = "OIML R 60:2021";
 
@@ -216,7 +216,7 @@ impl R60LoadCell {
 #[derive(Clone, Debug, Default, PartialEq)]
 pub struct R60Extras {
     /// Indications during 30 min at the maximum test load (times in s from loading).
-    pub creep: Option<Hold>,
+    pub creep: Option<CreepHold>,
     /// Minimum dead load output return DR, in N.
     pub dead_load_return: Option<f64>,
     /// Change of the minimum dead load output, in N, and the temperature change in K.
