@@ -57,12 +57,19 @@ pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError}
 // Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
 mod bridge;
 mod gauge;
+mod rosette;
+mod stress;
 pub use bridge::{
     Arm, ArmId, Arrangement, COPPER_RESISTIVITY, COPPER_TEMPERATURE_COEFFICIENT, Excitation,
     GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
     StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
 };
 pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
+pub use rosette::{
+    DeltaRosette, PrincipalStrains, RectangularRosette, StrainState, correct_orthogonal,
+    correct_single, correct_uniaxial,
+};
+pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
 #[cfg(feature = "cli")]
 pub mod cli;

@@ -4,6 +4,7 @@ mod bridge;
 mod calib;
 mod common;
 mod gauge;
+mod rosette;
 mod signal;
 mod standards;
 mod uncertainty;
