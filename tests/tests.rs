@@ -1,4 +1,13 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
+mod bridge;
+mod calib;
 mod common;
+mod gauge;
+mod rosette;
+#[cfg(feature = "script")]
 mod script;
+mod signal;
+mod spring;
+mod standards;
+mod uncertainty;
