@@ -7,5 +7,6 @@ mod common;
 mod gauge;
 mod rosette;
 mod signal;
+mod spring;
 mod standards;
 mod uncertainty;
