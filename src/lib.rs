@@ -21,9 +21,35 @@ mod display;
 mod error;
 pub mod units;
 
+// Signal processing, statistics and fatigue counting (issue 6).
+mod signal;
+pub use signal::{
+    Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, MAX_FILTER_ORDER, Ramp, RangeBin,
+    SnCurve, SosFilter, StreamingFilter, Summary, counts_by_range, decimate, decimation_filter,
+    find_holds, find_ramps, miner_damage, moving_average, rainflow_cycles, range_histogram,
+    resample_linear, reversals, rising_crossings, summarize, summarize_windows, uniform_times,
+};
+
 pub use display::{MimeBundle, ToMime, html_escape};
-pub use error::{PhysicsError, check_finite, check_positive, check_poisson};
+pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
+
+// Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
+mod bridge;
+mod gauge;
+mod rosette;
+mod stress;
+pub use bridge::{
+    Arm, ArmId, Arrangement, COPPER_RESISTIVITY, COPPER_TEMPERATURE_COEFFICIENT, Excitation,
+    GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
+    StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
+};
+pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
+pub use rosette::{
+    DeltaRosette, PrincipalStrains, RectangularRosette, StrainState, correct_orthogonal,
+    correct_single, correct_uniaxial,
+};
+pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
 #[cfg(feature = "cli")]
 pub mod cli;

@@ -1,4 +1,8 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
+mod bridge;
 mod common;
+mod gauge;
+mod rosette;
+mod signal;
 mod units;
