@@ -32,6 +32,26 @@ pub use signal::{
 
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
+
+// Calibration, class evaluation against standards, uncertainty (issue 7).
+mod calib;
+mod standards;
+mod uncertainty;
+pub use calib::{
+    CalibrationPoint, CalibrationRun, Characterisation, CharacteriseOptions, CreepHold, Direction,
+    Figure, Fit, FitModel, Line, LoadKind, ReferenceLine, ReportRow, ReportTable, Series, tc_span,
+    tc_zero,
+};
+pub use standards::{
+    Check, ClassVerdict, E74Result, Iso376Class, Iso376Data, Iso376Limits, Iso376Result,
+    Iso376Step, OimlClass, R60Extras, R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74,
+    evaluate_r60,
+};
+pub use uncertainty::{
+    Budget, Contribution, Distribution, Expanded, GumResult, Input, IntervalKind, McResult,
+    MonteCarlo, Validation, coverage_factor, ln_gamma, sample_correlation, student_t_quantile,
+    student_t_two_sided_tail,
+};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
 // Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.

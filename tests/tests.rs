@@ -1,8 +1,11 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
 mod bridge;
+mod calib;
 mod common;
 mod gauge;
 mod rosette;
 mod signal;
+mod standards;
+mod uncertainty;
 mod units;
