@@ -33,6 +33,16 @@ pub use signal::{
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 
+// Spring elements, materials, layouts and check-weighing (issue 5).
+mod material;
+mod spring;
+pub use material::{Material, material, materials};
+pub use spring::{
+    AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
+    Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
+    SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
+};
+
 // Calibration, class evaluation against standards, uncertainty (issue 7).
 mod calib;
 mod standards;

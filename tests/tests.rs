@@ -6,6 +6,7 @@ mod common;
 mod gauge;
 mod rosette;
 mod signal;
+mod spring;
 mod standards;
 mod uncertainty;
 mod units;
