@@ -2,6 +2,7 @@
 
 mod bridge;
 mod calib;
+mod chain;
 mod common;
 mod gauge;
 mod rosette;
