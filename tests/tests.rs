@@ -10,3 +10,4 @@ mod signal;
 mod spring;
 mod standards;
 mod uncertainty;
+mod units;
