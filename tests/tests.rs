@@ -2,6 +2,7 @@
 
 mod bridge;
 mod calib;
+mod chain;
 mod common;
 mod gauge;
 mod rosette;
@@ -11,3 +12,4 @@ mod signal;
 mod spring;
 mod standards;
 mod uncertainty;
+mod units;
