@@ -5,7 +5,7 @@ use rhai::Engine;
 
 use super::doc::reference_markdown;
 use super::lex::{TokKind, tokens};
-use super::quantity::{UNIT_CONSTANTS, unit_constant_names};
+use super::quantity::unit_constant_names;
 use super::session::{Completions, Names, Session};
 
 const KEYWORDS: &[&str] = &[
@@ -44,14 +44,7 @@ pub(crate) fn collect_names(engine: &Engine) -> Names {
 
 /// Unit symbols the parser knows, for completion inside unit strings.
 fn unit_symbols() -> Vec<String> {
-    // The units layer's full table replaces this list when `Unit::known_symbols` lands.
-    let mut v: Vec<String> = UNIT_CONSTANTS.iter().map(|(_, s)| s.to_string()).collect();
-    v.extend(
-        ["ohm", "kohm", "Ω", "kΩ", "µε", "mV/V", "N·m"]
-            .iter()
-            .map(|s| s.to_string()),
-    );
-    v
+    crate::units::Unit::known_symbols().to_vec()
 }
 
 fn char_to_byte(code: &str, cursor: usize) -> usize {
@@ -202,7 +195,7 @@ pub(crate) fn complete(s: &Session, code: &str, cursor: usize) -> Completions {
         .chain(functions.iter().cloned())
         .chain(script_fns)
         .chain(modules)
-        .chain(unit_constant_names().map(str::to_string))
+        .chain(unit_constant_names().into_iter().map(str::to_string))
         .chain(KEYWORDS.iter().map(|k| k.to_string()));
     finish(code, word_start, end, prefix, cands)
 }

@@ -7,76 +7,21 @@
 
 use std::cmp::Ordering;
 use std::collections::HashMap;
-use std::sync::OnceLock;
+use std::sync::{Arc, OnceLock};
 
 use rhai::{Dynamic, Engine, INT, Map};
 
 use super::bind::{ScriptResult, fault, func};
-use crate::units::Quantity;
+use crate::units::{Quantity, Unit};
 use crate::{Dimension, Kind};
 
-/// Script names of the unit constants and the unit each stands for (one of that unit).
-/// Identifiers must be valid Rhai names, so `µε` is `ue`, `mV/V` is `mV_V`, `N·m` is `Nm`.
-pub(crate) const UNIT_CONSTANTS: &[(&str, &str)] = &[
-    // electrical
-    ("V", "V"),
-    ("mV", "mV"),
-    ("uV", "µV"),
-    ("kV", "kV"),
-    ("A", "A"),
-    ("mA", "mA"),
-    ("uA", "µA"),
-    ("ohm", "ohm"),
-    ("kohm", "kohm"),
-    ("Mohm", "Mohm"),
-    ("W", "W"),
-    ("mW", "mW"),
-    ("uW", "µW"),
-    // mechanical
-    ("N", "N"),
-    ("kN", "kN"),
-    ("MN", "MN"),
-    ("Nm", "N*m"),
-    ("kNm", "kN*m"),
-    ("kg", "kg"),
-    ("g", "g"),
-    ("t", "t"),
-    ("m", "m"),
-    ("mm", "mm"),
-    ("um", "µm"),
-    ("cm", "cm"),
-    ("Pa", "Pa"),
-    ("kPa", "kPa"),
-    ("MPa", "MPa"),
-    ("GPa", "GPa"),
-    // strain and bridge output
-    ("ue", "ue"),
-    ("mV_V", "mV/V"),
-    ("V_V", "V/V"),
-    // time, frequency, temperature difference, angle, ratios
-    ("s", "s"),
-    ("ms", "ms"),
-    ("Hz", "Hz"),
-    ("kHz", "kHz"),
-    ("K", "K"),
-    ("rad", "rad"),
-    ("deg", "deg"),
-    ("percent", "%"),
-    ("ppm", "ppm"),
-    // US customary units of the trade
-    ("lbf", "lbf"),
-    ("inch", "in"),
-    ("psi", "psi"),
-];
-
+/// The unit constants, from the units layer's own list (`Unit::constants`): one of each unit.
 fn constants() -> &'static HashMap<&'static str, Quantity> {
     static TABLE: OnceLock<HashMap<&'static str, Quantity>> = OnceLock::new();
     TABLE.get_or_init(|| {
-        UNIT_CONSTANTS
-            .iter()
-            // A symbol the units table does not (yet) know is left out rather than guessed;
-            // the test `every_unit_constant_parses` lists any that are missing.
-            .filter_map(|&(name, sym)| Quantity::new(1.0, sym).ok().map(|q| (name, q)))
+        Unit::constants()
+            .into_iter()
+            .map(|(name, u)| (name, Quantity::in_unit(1.0, Arc::new(u))))
             .collect()
     })
 }
@@ -87,11 +32,10 @@ pub(crate) fn unit_constant(name: &str) -> Option<Quantity> {
 }
 
 /// Names of the unit constants available in this build.
-pub(crate) fn unit_constant_names() -> impl Iterator<Item = &'static str> {
-    UNIT_CONSTANTS
-        .iter()
-        .map(|(n, _)| *n)
-        .filter(|n| constants().contains_key(n))
+pub(crate) fn unit_constant_names() -> Vec<&'static str> {
+    let mut v: Vec<&'static str> = constants().keys().copied().collect();
+    v.sort_unstable();
+    v
 }
 
 fn plain(q: &Quantity) -> bool {
@@ -376,18 +320,20 @@ pub(crate) fn register(engine: &mut Engine) {
     });
 
     func("unit_constants", &[], "Map", r#"
-        The unit constants every script can use by name (`350.0 * ohm`, `2.0 * mV_V`, `1000.0 * ue`),
-        as a map from name to one of that unit. Names: V mV uV kV A mA uA ohm kohm Mohm W mW uW
-        N kN MN Nm kNm kg g t m mm um cm Pa kPa MPa GPa ue mV_V V_V s ms Hz kHz K rad deg percent
-        ppm lbf inch psi. A variable of the same name hides the constant.
+        The unit constants every script can use by name (`350.0 * ohm`, `2.0 * mV_per_V`, `1000.0 * ue`),
+        as a map from name to one of that unit: `V mV uV A mA ohm kohm Mohm W N kN N_m lbf kg m mm
+        um inch Pa MPa GPa psi ue mV_per_V …` (print `unit_constants().keys()` for all of them).
+        Names are Rhai identifiers: `µε` is `ue`, `mV/V` is `mV_per_V`, `N·m` is `N_m`. A variable of
+        the same name hides the constant.
         ```rhai
         assert_close(350.0 * ohm, q("350 ohm"), 1e-12);
-        assert_close(2.0 * mV_V, q("2 mV/V"), 1e-12);
+        assert_close(2.0 * mV_per_V, q("2 mV/V"), 1e-12);
         assert("kN" in unit_constants());
         ```
     "#)
     .register_into_engine(engine, || -> Map {
         unit_constant_names()
+            .into_iter()
             .filter_map(|n| unit_constant(n).map(|q| (n.into(), Dynamic::from(q))))
             .collect()
     });
@@ -398,22 +344,19 @@ mod tests {
     use super::*;
 
     #[test]
-    #[ignore = "the provisional units seed lacks most symbols; enabled when the units table lands"]
-    fn every_unit_constant_parses() {
-        let missing: Vec<&str> = UNIT_CONSTANTS
-            .iter()
-            .filter(|(_, s)| Quantity::new(1.0, s).is_err())
-            .map(|(_, s)| *s)
-            .collect();
-        assert!(
-            missing.is_empty(),
-            "the units table does not know {missing:?}"
-        );
+    fn constants_cover_the_issue_list() {
+        // Issue 3 names these explicitly.
+        for n in [
+            "V", "mV", "ohm", "kohm", "N", "kN", "kg", "mm", "MPa", "GPa", "ue",
+        ] {
+            assert!(unit_constant(n).is_some(), "{n}");
+        }
+        assert_eq!(unit_constant("kohm").map(|q| q.si()), Some(1000.0));
     }
 
     #[test]
     fn constant_names_are_rhai_identifiers() {
-        for (n, _) in UNIT_CONSTANTS {
+        for n in unit_constant_names() {
             assert!(
                 n.chars().all(|c| c.is_ascii_alphanumeric() || c == '_'),
                 "{n}"
