@@ -28,6 +28,10 @@ pub enum LoadKind {
 
 impl LoadKind {
     /// The SI unit the loads are stored in.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::LoadKind::Force.si_unit(), "N");
+    /// ```
     pub fn si_unit(self) -> &'static str {
         match self {
             LoadKind::Force => "N",
@@ -93,11 +97,27 @@ pub struct Series {
 
 impl Series {
     /// The applied loads, in order.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.series()[0].loads(), vec![0.0, 100.0]);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn loads(&self) -> Vec<f64> {
         self.points.iter().map(|p| p.load).collect()
     }
 
     /// The indications, in order.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.series()[0].indications(), vec![0.01, 2.0]);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn indications(&self) -> Vec<f64> {
         self.points.iter().map(|p| p.indication).collect()
     }
@@ -142,6 +162,12 @@ pub struct CalibrationRun {
 
 impl CalibrationRun {
     /// An empty run with loads of `load_kind` and indications labelled `indication_unit`.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, LoadKind};
+    /// let run = CalibrationRun::new(LoadKind::Torque, "counts");
+    /// assert!(run.points().is_empty());
+    /// ```
     pub fn new(load_kind: LoadKind, indication_unit: &str) -> CalibrationRun {
         CalibrationRun {
             load_kind,
@@ -151,26 +177,63 @@ impl CalibrationRun {
     }
 
     /// An empty run of a load cell: force against bridge output in V/V.
+    ///
+    /// ```
+    /// let run = gaugebook::CalibrationRun::force_in_output_ratio();
+    /// assert_eq!(run.load_kind(), gaugebook::LoadKind::Force);
+    /// ```
     pub fn force_in_output_ratio() -> CalibrationRun {
         CalibrationRun::new(LoadKind::Force, "V/V")
     }
 
     /// The load kind.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.load_kind(), LoadKind::Force);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn load_kind(&self) -> LoadKind {
         self.load_kind
     }
 
     /// The unit label of the indications.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.indication_unit(), "mV/V");
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn indication_unit(&self) -> &str {
         &self.indication_unit
     }
 
     /// The series in the order pushed.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.series().len(), 1);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn series(&self) -> &[Series] {
         &self.series
     }
 
     /// Every point of every series.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.points()[1].indication, 2.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn points(&self) -> Vec<CalibrationPoint> {
         self.series
             .iter()

@@ -52,6 +52,10 @@ pub enum OimlClass {
 impl OimlClass {
     /// Minimum and maximum number of load cell verification intervals n_LC (Table 2, from
     /// memory); `None`: no upper limit.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::A.interval_range().1, None);
+    /// ```
     pub fn interval_range(self) -> (u32, Option<u32>) {
         match self {
             OimlClass::A => (50_000, None),
@@ -62,6 +66,10 @@ impl OimlClass {
     }
 
     /// Upper edges of the first two MPE bands, in verification intervals (Table 5, from memory).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::D.band_edges(), (50.0, 200.0));
+    /// ```
     pub fn band_edges(self) -> (f64, f64) {
         match self {
             OimlClass::A => (50_000.0, 200_000.0),
@@ -73,6 +81,10 @@ impl OimlClass {
 
     /// Temperature change over which the minimum dead load output may change by p_LC × v_min:
     /// 2 °C for class A, 5 °C otherwise (from memory).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::B.min_load_temperature_step(), 5.0);
+    /// ```
     pub fn min_load_temperature_step(self) -> f64 {
         match self {
             OimlClass::A => 2.0,
@@ -81,6 +93,10 @@ impl OimlClass {
     }
 
     /// The class letter.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::C.letter(), "C");
+    /// ```
     pub fn letter(self) -> &'static str {
         match self {
             OimlClass::A => "A",
@@ -142,6 +158,13 @@ pub struct R60LoadCell {
 
 impl R60LoadCell {
     /// A load cell with p_LC = 0.7 and the default reference line.
+    ///
+    /// ```
+    /// use gaugebook::{OimlClass, R60LoadCell};
+    /// assert!(R60LoadCell::new(OimlClass::C, 3000, 1e4, 2e4, 0.5).is_err()); // E_min ≥ E_max
+    /// assert_eq!(R60LoadCell::new(OimlClass::C, 3000, 1e4, 0.0, 0.5)?.p_lc, 0.7);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(
         class: OimlClass,
         n_max: u32,
@@ -195,12 +218,24 @@ impl R60LoadCell {
     }
 
     /// Y = E_max / v_min.
+    ///
+    /// ```
+    /// let c = gaugebook::R60LoadCell::new(gaugebook::OimlClass::C, 3000, 1e4, 0.0, 1.0)?;
+    /// assert_eq!(c.y(), 1e4);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn y(&self) -> f64 {
         self.e_max / self.v_min
     }
 
     /// The verification interval used in the test: v = (D_max − D_min)/n_max over the measuring
     /// range from E_min to E_max (from memory).
+    ///
+    /// ```
+    /// let c = gaugebook::R60LoadCell::new(gaugebook::OimlClass::C, 2000, 1e4, 0.0, 1.0)?;
+    /// assert_eq!(c.test_interval(), 5.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn test_interval(&self) -> f64 {
         (self.e_max - self.e_min) / self.n_max as f64
     }
