@@ -404,6 +404,95 @@ impl CalibrationRun {
         Ok(())
     }
 
+    /// Builds a run from a test log's detected holds (see [`crate::find_holds`]): each hold's
+    /// samples, less `settle` at each end, give one point (mean load, mean indication); the
+    /// points are split into ascending and descending series where the load turns, the turning
+    /// point belonging to both. Consecutive holds at the same load (within `tol`) keep the first.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, HoldCriteria, LoadKind, find_holds};
+    /// // Load steps 0, 50, 100, 50, 0 N of 40 samples each, ramps of 10 between.
+    /// let levels = [0.0, 50.0, 100.0, 50.0, 0.0];
+    /// let mut load = vec![];
+    /// for (k, &l) in levels.iter().enumerate() {
+    ///     if k > 0 {
+    ///         let prev: f64 = levels[k - 1];
+    ///         load.extend((1..=10).map(|i| prev + (l - prev) * i as f64 / 11.0));
+    ///     }
+    ///     load.extend(std::iter::repeat(l).take(40));
+    /// }
+    /// let ind: Vec<f64> = load.iter().map(|l| 0.02 * l).collect();
+    /// let holds = find_holds(&load, &HoldCriteria { tolerance: 0.5, min_samples: 30, settle_samples: 0 })?;
+    /// let run = CalibrationRun::from_holds(LoadKind::Force, "mV/V", &load, &ind, &holds, 2, 1.0, 0.0)?;
+    /// assert_eq!(run.series().len(), 2);
+    /// assert_eq!(run.series_in(Direction::Descending)[0].loads(), vec![100.0, 50.0, 0.0]);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    #[allow(clippy::too_many_arguments)] // each argument is a distinct, named input of the log
+    pub fn from_holds(
+        load_kind: LoadKind,
+        indication_unit: &str,
+        load: &[f64],
+        indication: &[f64],
+        holds: &[crate::Hold],
+        settle: usize,
+        tol: f64,
+        rotation_deg: f64,
+    ) -> Result<CalibrationRun, PhysicsError> {
+        if load.len() != indication.len() {
+            return Err(PhysicsError::Mismatch {
+                what: "load and indication column lengths".into(),
+                left: format!("{} load samples", load.len()),
+                right: format!("{} indication samples", indication.len()),
+            });
+        }
+        let mut pts: Vec<(f64, f64)> = vec![];
+        for h in holds {
+            let (a, b) = (h.start + settle, h.end.saturating_sub(settle));
+            if b <= a || b > load.len() {
+                return Err(PhysicsError::invalid(
+                    "hold range",
+                    format!(
+                        "samples {} … {} less {settle} settling each end",
+                        h.start, h.end
+                    ),
+                    format!("a non-empty range within {} samples", load.len()),
+                ));
+            }
+            let n = (b - a) as f64;
+            let l = load[a..b].iter().sum::<f64>() / n;
+            let r = indication[a..b].iter().sum::<f64>() / n;
+            if pts.last().is_none_or(|&(pl, _)| (l - pl).abs() > tol) {
+                pts.push((l, r));
+            }
+        }
+        let mut run = CalibrationRun::new(load_kind, indication_unit);
+        let mut start = 0;
+        while start + 1 < pts.len() {
+            let rising = pts[start + 1].0 > pts[start].0;
+            let mut end = start + 1;
+            while end + 1 < pts.len() && (pts[end + 1].0 > pts[end].0) == rising {
+                end += 1;
+            }
+            let (l, r): (Vec<f64>, Vec<f64>) = pts[start..=end].iter().copied().unzip();
+            let dir = if rising {
+                Direction::Ascending
+            } else {
+                Direction::Descending
+            };
+            run.push_series(&l, &r, dir, rotation_deg)?;
+            start = end;
+        }
+        if run.series.is_empty() {
+            return Err(PhysicsError::NotEnoughData {
+                what: "calibration points from holds".into(),
+                needed: 2,
+                found: pts.len(),
+            });
+        }
+        Ok(run)
+    }
+
     /// All loads and indications of the chosen direction(s) as two parallel vectors (for fits).
     ///
     /// ```
