@@ -440,7 +440,7 @@ mod bad_input {
             .unwrap_err();
         assert_eq!(
             e.to_string(),
-            "invalid load sequence at point 2: expected strictly increasing loads in a increasing \
+            "invalid load sequence at point 2: expected strictly increasing loads in an ascending \
              series, found 10 N after 10 N"
         );
     }

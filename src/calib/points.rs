@@ -313,10 +313,10 @@ impl CalibrationRun {
                 return Err(PhysicsError::invalid(
                     format!("load sequence at point {}", i + 1),
                     format!("{} {unit} after {} {unit}", w[1], w[0]),
-                    format!(
-                        "{want} loads in a {} series",
-                        want.split(' ').nth(1).unwrap_or("")
-                    ),
+                    match direction {
+                        Direction::Ascending => format!("{want} loads in an ascending series"),
+                        Direction::Descending => format!("{want} loads in a descending series"),
+                    },
                 ));
             }
         }
