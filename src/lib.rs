@@ -33,6 +33,16 @@ pub use signal::{
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 
+// Spring elements, materials, layouts and check-weighing (issue 5).
+mod material;
+mod spring;
+pub use material::{Material, material, materials};
+pub use spring::{
+    AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
+    Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
+    SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
+};
+
 // Calibration, class evaluation against standards, uncertainty (issue 7).
 mod calib;
 mod standards;
@@ -56,6 +66,7 @@ pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError}
 
 // Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
 mod bridge;
+mod chain;
 mod gauge;
 mod rosette;
 mod stress;
@@ -64,6 +75,7 @@ pub use bridge::{
     GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
     StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
 };
+pub use chain::{Adc, AdcReference, Amplifier, InputNoise, PEAK_TO_PEAK_PER_RMS, SignalChain};
 pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
 pub use rosette::{
     DeltaRosette, PrincipalStrains, RectangularRosette, StrainState, correct_orthogonal,

@@ -2,9 +2,12 @@
 
 mod bridge;
 mod calib;
+mod chain;
 mod common;
 mod gauge;
 mod rosette;
 mod signal;
+mod spring;
 mod standards;
 mod uncertainty;
+mod units;

@@ -5,7 +5,7 @@
 
 use std::fmt;
 
-/// Exponents of the seven SI base dimensions, in the SI Brochure's order
+/// Exponents of the seven SI base dimensions, in the order of the SI Brochure (from memory)
 /// (9th edition, 2019, §2.3.3): length, mass, time, electric current, thermodynamic temperature,
 /// amount of substance, luminous intensity.
 ///
@@ -146,7 +146,7 @@ mod tests {
 
     #[test]
     fn algebra_of_derived_units() {
-        // SI Brochure (9th ed., 2019) Table 4: N = kg·m·s⁻², Pa = N/m², V = W/A, Ω = V/A.
+        // SI Brochure (9th ed., 2019) Table 4 (from memory): N = kg·m·s⁻², Pa = N/m², V = W/A, Ω = V/A.
         let newton = Dimension::MASS * Dimension::LENGTH / Dimension::TIME.powi(2);
         let pascal = newton / Dimension::LENGTH.powi(2);
         assert_eq!(pascal, Dimension([-1, 1, -2, 0, 0, 0, 0]));

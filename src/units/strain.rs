@@ -175,18 +175,9 @@ macro_rules! linear_newtype_ops {
 linear_newtype_ops!(Strain);
 linear_newtype_ops!(OutputRatio);
 
-/// Shortest round-trip form with at most 6 significant figures, as a person writes it.
+/// Six significant figures, trailing zeros trimmed (the quantity display's rule).
 fn short(v: f64) -> String {
-    if v == 0.0 {
-        return "0".into();
-    }
-    let digits = 6 - 1 - v.abs().log10().floor() as i32;
-    let s = format!("{:.*}", digits.clamp(0, 17) as usize, v);
-    if s.contains('.') {
-        s.trim_end_matches('0').trim_end_matches('.').to_string()
-    } else {
-        s
-    }
+    super::format::number(v)
 }
 
 impl fmt::Display for Strain {
