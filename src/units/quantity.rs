@@ -24,6 +24,22 @@ use super::{Dimension, Kind, Unit, UnitError, format, parse};
 /// assert_eq!(r.try_add(&v).unwrap_err().to_string(), "cannot add 350 Ω and 5 V");
 /// # Ok::<(), gaugebook::units::UnitError>(())
 /// ```
+///
+/// The physics API takes uom quantities and the [`Strain`](crate::Strain) and
+/// [`OutputRatio`](crate::OutputRatio) newtypes; `From` and `TryFrom` bridge them, checking
+/// dimension and kind:
+///
+/// ```
+/// use gaugebook::Strain;
+/// use gaugebook::units::{Force, Quantity};
+/// use uom::si::force::newton;
+/// let f = Force::try_from(&Quantity::parse("2 kN")?)?;
+/// assert_eq!(f.get::<newton>(), 2000.0);
+/// assert_eq!(Quantity::from(f).to_string(), "2 kN");
+/// let e = Strain::try_from(Quantity::parse("0.5 mV/V")?).unwrap_err();
+/// assert_eq!(e.to_string(), "expected a strain (µε, ε), found 0.5 mV/V");
+/// # Ok::<(), gaugebook::units::UnitError>(())
+/// ```
 #[derive(Clone, Debug)]
 pub struct Quantity {
     si: f64,
@@ -225,17 +241,19 @@ impl Quantity {
 
     /// Re-expresses the quantity in another unit, which becomes its display unit.
     ///
-    /// The unit must have the same dimension and a compatible kind: the same kind; or a plain
-    /// ratio for a strain or output ratio (`1000 µε` in `%` is `0.1 %`, still a strain); or the
-    /// other temperature kind, counted from absolute zero (`300 K` in `degC` is `26.85 °C`, a
-    /// reading; `25 °C` in `K` is `298.15 K`, a kelvin value). The result takes the unit's
-    /// temperature kind.
+    /// The unit must have the same dimension and a compatible kind: the same kind; or a named
+    /// plain ratio (`%`, `ppm`) for a strain or output ratio (`1000 µε` in `%` is `0.1 %`, still
+    /// a strain; a bare number is refused, so a strain cannot pass for a plain ratio); or, for a
+    /// temperature reading, a difference unit counted from absolute zero (`25 °C` in `K` is
+    /// `298.15 K`, still a reading). A difference is never converted to a reading (`5 K` in
+    /// `degC` is refused; see [`Kind`]).
     ///
     /// ```
     /// use gaugebook::units::Quantity;
     /// let r = Quantity::parse("174650 ohm")?.to("kohm")?;
     /// assert_eq!(r.to_string(), "174.65 kΩ");
-    /// assert_eq!(Quantity::parse("300 K")?.to("degC")?.to_string(), "26.85 °C");
+    /// assert_eq!(Quantity::parse("25 degC")?.to("K")?.to_string(), "298.15 K");
+    /// assert!(Quantity::parse("5 K")?.to("degC").is_err());
     /// let e = Quantity::parse("500 ue")?.to("mV/V").unwrap_err();
     /// assert_eq!(e.to_string(), "cannot express 500 µε in mV/V");
     /// # Ok::<(), gaugebook::units::UnitError>(())
@@ -288,12 +306,17 @@ impl Quantity {
         } else {
             match (self.kind, u.kind()) {
                 (a, b) if a == b => Some(a),
-                (Strain | OutputRatio, Plain) => Some(self.kind),
-                (AbsoluteTemperature, TemperatureInterval)
-                | (TemperatureInterval, AbsoluteTemperature) => Some(u.kind()),
+                (Strain | OutputRatio, Plain) if !u.symbol().is_empty() => Some(self.kind),
+                (AbsoluteTemperature, TemperatureInterval) => Some(AbsoluteTemperature),
                 _ => None,
             }
         };
+        if kind.is_none() && self.kind == TemperatureInterval && u.kind() == AbsoluteTemperature {
+            return Err(UnitError::DifferenceAsReading {
+                quantity: self.to_string(),
+                unit: u.symbol().into(),
+            });
+        }
         kind.ok_or_else(|| UnitError::NotConvertible {
             quantity: self.to_string(),
             unit: if u.symbol().is_empty() {
