@@ -99,7 +99,10 @@ impl PhysicsError {
     /// assert!(e.to_string().starts_with("slender beam is outside"));
     /// ```
     pub fn out_of_range(model: impl Into<String>, reason: impl Into<String>) -> PhysicsError {
-        PhysicsError::OutOfRange { model: model.into(), reason: reason.into() }
+        PhysicsError::OutOfRange {
+            model: model.into(),
+            reason: reason.into(),
+        }
     }
 }
 
@@ -115,7 +118,11 @@ pub fn check_positive(name: &str, value: f64, unit: &str) -> Result<f64, Physics
     if value.is_finite() && value > 0.0 {
         Ok(value)
     } else {
-        Err(PhysicsError::invalid(name, with_unit(value, unit), "a finite value above 0"))
+        Err(PhysicsError::invalid(
+            name,
+            with_unit(value, unit),
+            "a finite value above 0",
+        ))
     }
 }
 
@@ -128,7 +135,11 @@ pub fn check_finite(name: &str, value: f64, unit: &str) -> Result<f64, PhysicsEr
     if value.is_finite() {
         Ok(value)
     } else {
-        Err(PhysicsError::invalid(name, with_unit(value, unit), "a finite value"))
+        Err(PhysicsError::invalid(
+            name,
+            with_unit(value, unit),
+            "a finite value",
+        ))
     }
 }
 
@@ -145,10 +156,18 @@ pub fn check_poisson(nu: f64) -> Result<f64, PhysicsError> {
     if nu.is_finite() && nu > -1.0 && nu < 0.5 {
         Ok(nu)
     } else {
-        Err(PhysicsError::invalid("Poisson's ratio", nu, "a value in (-1, 0.5)"))
+        Err(PhysicsError::invalid(
+            "Poisson's ratio",
+            nu,
+            "a value in (-1, 0.5)",
+        ))
     }
 }
 
 fn with_unit(value: f64, unit: &str) -> String {
-    if unit.is_empty() { format!("{value}") } else { format!("{value} {unit}") }
+    if unit.is_empty() {
+        format!("{value}")
+    } else {
+        format!("{value} {unit}")
+    }
 }

@@ -1,5 +1,17 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
+mod bridge;
+mod calib;
+mod chain;
 mod common;
+mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
+mod rosette;
+#[cfg(feature = "script")]
+mod script;
+mod signal;
+mod spring;
+mod standards;
+mod uncertainty;
+mod units;
