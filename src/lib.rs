@@ -96,6 +96,7 @@ mod kernel;
 #[cfg(feature = "kernel")]
 pub use kernel::{
     Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
-    KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel_with,
+    KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
+    run_kernel_with,
     uninstall_kernelspec,
 };

@@ -115,12 +115,14 @@ impl Fake {
         Ok(None)
     }
 
-    fn word_at(code: &str, cursor: usize) -> (usize, &str) {
-        let head = &code[..cursor.min(code.len())];
+    /// The word before character offset `cursor`, and its start (characters).
+    fn word_at(code: &str, cursor: usize) -> (usize, String) {
+        let head: Vec<char> = code.chars().take(cursor).collect();
         let start = head
-            .rfind(|c: char| !(c.is_alphanumeric() || c == '_'))
+            .iter()
+            .rposition(|c| !(c.is_alphanumeric() || *c == '_'))
             .map_or(0, |i| i + 1);
-        (start, &head[start..])
+        (start, head[start..].iter().collect())
     }
 }
 
@@ -152,14 +154,14 @@ impl Backend for Fake {
         CompletionSet {
             start,
             end: cursor,
-            matches: names.filter(|n| n.starts_with(word)).collect(),
+            matches: names.filter(|n| n.starts_with(word.as_str())).collect(),
         }
     }
 
     fn inspect(&self, code: &str, cursor: usize) -> Option<String> {
         let (_, word) = Fake::word_at(code, cursor);
         FAKE_NAMES
-            .contains(&word)
+            .contains(&word.as_str())
             .then(|| format!("{word}(x): a fake function"))
     }
 
@@ -196,7 +198,7 @@ fn kernel_child() {
 }
 
 fn run_session_kernel(file: &Path) -> Result<(), gaugebook::KernelError> {
-    gaugebook::run_kernel_with(file, || Ok(Fake::default()))
+    gaugebook::run_kernel(file)
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -278,7 +280,9 @@ enum Engine {
 /// A temporary Jupyter path holding a `gaugebook` kernelspec for `engine`.
 fn jupyter_path(engine: Engine) -> tempfile::TempDir {
     let tmp = tempfile::tempdir().expect("temp dir");
-    let bin = option_env!("CARGO_BIN_EXE_gaugebook");
+    // Cargo names the binary even when its required `cli` feature is off and it is not built
+    // (a stale copy may lie there), so the feature decides.
+    let bin = option_env!("CARGO_BIN_EXE_gaugebook").filter(|_| cfg!(feature = "cli"));
     let (argv, env): (Vec<String>, Option<&str>) = match (engine, bin) {
         (Engine::Session, Some(bin)) => (
             vec![
@@ -379,8 +383,16 @@ fn jupyter_kernel_test_suite_fake_engine() {
 }
 
 #[test]
+fn jupyter_kernel_test_suite_rhai_session() {
+    let Some(out) = run_py("suite.py", Engine::Session, &["--samples", "rhai"]) else {
+        return;
+    };
+    assert!(out.contains("\"failures\": 0"), "{out}");
+}
+
+#[test]
 fn forged_messages_execute_nothing() {
-    let Some(out) = run_py("forged.py", Engine::Fake, &[]) else {
+    let Some(out) = run_py("forged.py", Engine::Session, &[]) else {
         return;
     };
     assert!(out.contains("\"forged_executed\": false"), "{out}");
@@ -388,7 +400,7 @@ fn forged_messages_execute_nothing() {
 
 #[test]
 fn interrupt_stops_a_runaway_cell_and_keeps_the_session() {
-    let Some(out) = run_py("interrupt.py", Engine::Fake, &["--code", "fake"]) else {
+    let Some(out) = run_py("interrupt.py", Engine::Session, &[]) else {
         return;
     };
     assert!(out.contains("\"kept\": true"), "{out}");
@@ -396,7 +408,7 @@ fn interrupt_stops_a_runaway_cell_and_keeps_the_session() {
 
 #[test]
 fn malformed_frames_and_sigint_do_not_kill_the_kernel() {
-    let Some(out) = run_py("robust.py", Engine::Fake, &[]) else {
+    let Some(out) = run_py("robust.py", Engine::Session, &[]) else {
         return;
     };
     assert!(out.contains("\"alive\": true"), "{out}");
@@ -404,7 +416,7 @@ fn malformed_frames_and_sigint_do_not_kill_the_kernel() {
 
 #[test]
 fn soak_of_ten_thousand_cells_reports_memory_growth() {
-    let Some(out) = run_py("soak.py", Engine::Fake, &["-n", "10000"]) else {
+    let Some(out) = run_py("soak.py", Engine::Session, &["-n", "10000"]) else {
         return;
     };
     assert!(out.contains("\"wrong_replies\": 0"), "{out}");

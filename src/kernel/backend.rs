@@ -61,7 +61,7 @@ pub enum CodeStatus {
     Invalid,
 }
 
-/// Completion candidates for the text between `start` and `end` (byte offsets into the code).
+/// Completion candidates for the text between `start` and `end` (character offsets into the code, as the protocol counts them since 5.2).
 ///
 /// ```
 /// let c = gaugebook::CompletionSet { start: 0, end: 2, matches: vec!["sqrt".into()] };
@@ -69,9 +69,9 @@ pub enum CodeStatus {
 /// ```
 #[derive(Clone, Debug, Default, PartialEq)]
 pub struct CompletionSet {
-    /// First byte replaced.
+    /// First character replaced.
     pub start: usize,
-    /// One past the last byte replaced.
+    /// One past the last character replaced.
     pub end: usize,
     /// The candidates.
     pub matches: Vec<String>,
@@ -110,9 +110,9 @@ pub trait Backend {
     fn execute(&mut self, code: &str, origin: &str) -> Result<Option<MimeBundle>, CellError>;
     /// A handle that stops the running cell.
     fn interrupter(&self) -> Interrupter;
-    /// Completion candidates at byte offset `cursor`.
+    /// Completion candidates at character offset `cursor`.
     fn complete(&self, code: &str, cursor: usize) -> CompletionSet;
-    /// The reference text for the name at byte offset `cursor`, if it names something.
+    /// The reference text for the name at character offset `cursor`, if it names something.
     fn inspect(&self, code: &str, cursor: usize) -> Option<String>;
     /// Whether `code` is ready to run.
     fn is_complete(&self, code: &str) -> CodeStatus;

@@ -13,12 +13,14 @@ mod history;
 mod iopub;
 mod logo;
 mod server;
+mod session;
 mod spec;
 mod wire;
 
 use std::path::{Path, PathBuf};
 
 pub use backend::{Backend, CellError, CodeStatus, CompletionSet, Interrupter, KernelOutput};
+pub use session::run_kernel;
 pub use spec::{
     KERNEL_NAME, KernelspecTarget, install_kernelspec, install_kernelspec_with,
     uninstall_kernelspec,

@@ -302,7 +302,7 @@ impl Kernel {
             }
             "complete_request" => {
                 let code = text("code");
-                let cursor = cursor_bytes(&code, c.get("cursor_pos"));
+                let cursor = cursor_chars(&code, c.get("cursor_pos"));
                 let code2 = code.clone();
                 let set = self
                     .ask(|reply| Job::Complete {
@@ -312,8 +312,8 @@ impl Kernel {
                     })
                     .await
                     .unwrap_or_default();
-                let start = byte_to_chars(&code, set.start.min(cursor));
-                let end = byte_to_chars(&code, set.end.max(set.start.min(cursor)));
+                let start = set.start.min(cursor);
+                let end = set.end.clamp(start, code.chars().count());
                 Some(self.reply(
                     msg,
                     "complete_reply",
@@ -323,7 +323,7 @@ impl Kernel {
             }
             "inspect_request" => {
                 let code = text("code");
-                let cursor = cursor_bytes(&code, c.get("cursor_pos"));
+                let cursor = cursor_chars(&code, c.get("cursor_pos"));
                 let found = self
                     .ask(|reply| Job::Inspect {
                         code,
@@ -565,20 +565,12 @@ fn help_target(code: &str) -> Option<&str> {
     ok.then_some(name)
 }
 
-/// A protocol cursor (unicode code points since protocol 5.2) as a byte offset.
-fn cursor_bytes(code: &str, pos: Option<&Value>) -> usize {
-    let chars = pos
-        .and_then(Value::as_u64)
-        .map_or(usize::MAX, |p| p as usize);
-    code.char_indices()
-        .nth(chars)
-        .map_or(code.len(), |(i, _)| i)
-}
-
-/// A byte offset as a count of code points.
-fn byte_to_chars(code: &str, byte: usize) -> usize {
-    let b = byte.min(code.len());
-    code.char_indices().take_while(|(i, _)| *i < b).count()
+/// A protocol cursor (unicode code points since protocol 5.2), clamped to the code; a missing
+/// cursor means the end of the code.
+fn cursor_chars(code: &str, pos: Option<&Value>) -> usize {
+    let len = code.chars().count();
+    pos.and_then(Value::as_u64)
+        .map_or(len, |p| usize::try_from(p).unwrap_or(len).min(len))
 }
 
 #[cfg(test)]
@@ -594,12 +586,11 @@ mod tests {
     }
 
     #[test]
-    fn cursors_convert_between_chars_and_bytes() {
+    fn cursors_count_characters_and_are_clamped() {
         let code = "µε + ab";
-        assert_eq!(cursor_bytes(code, Some(&json!(2))), 4);
-        assert_eq!(cursor_bytes(code, None), code.len());
-        assert_eq!(byte_to_chars(code, 4), 2);
-        assert_eq!(byte_to_chars(code, code.len()), 7);
+        assert_eq!(cursor_chars(code, Some(&json!(2))), 2);
+        assert_eq!(cursor_chars(code, None), 7);
+        assert_eq!(cursor_chars(code, Some(&json!(99))), 7);
     }
 
     #[test]

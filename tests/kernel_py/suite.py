@@ -43,6 +43,61 @@ SAMPLES = {
             {"code": "display(6 * 7)", "mime": "text/html"},
         ],
     ),
+    "rhai": dict(
+        completion_samples=[
+            {"text": "clear_outp", "matches": ["clear_output"]},
+            {"text": "update_disp", "matches": ["update_display"]},
+        ],
+        complete_code_samples=["6 * 7", "let a = 1;", "fn twice(x) { 2 * x }"],
+        invalid_code_samples=["let = ;", "1 + * 2"],
+        code_page_something='help("q")',
+        code_inspect_sample="q",
+        code_display_data=[
+            {"code": 'display(q("2 mV/V"))', "mime": "text/plain"},
+            {"code": 'display("loading", "progress")', "mime": "text/plain"},
+        ],
+    ),
+}
+
+
+def test_update_display_data(self):
+    """display(x, id) then update_display(y, id): display_data, then update_display_data with
+    the same transient display_id (an addition to jupyter_kernel_test's list)."""
+    self.flush_channels()
+    reply, outs = self.execute_helper('display(0, "count"); update_display(1, "count")')
+    self.assertEqual(reply["content"]["status"], "ok")
+    kinds = [m["msg_type"] for m in outs]
+    self.assertEqual(kinds, ["display_data", "update_display_data"])
+    for m in outs:
+        self.assertEqual(m["content"]["transient"]["display_id"], "count")
+    self.assertEqual(outs[1]["content"]["data"]["text/plain"], "1")
+
+
+def test_error_traceback_has_caret(self):
+    """A unit mismatch renders as ename, evalue and a traceback with the source line and caret."""
+    self.flush_channels()
+    reply, outs = self.execute_helper('let r = q("350 ohm");\nr + q("5 V")')
+    self.assertEqual(reply["content"]["status"], "error")
+    self.assertEqual(reply["content"]["ename"], "UnitError")
+    tb = "\n".join(reply["content"]["traceback"])
+    self.assertIn("^", tb)
+    self.assertIn('r + q("5 V")', tb)
+
+
+def test_state_survives_a_failed_cell(self):
+    self.flush_channels()
+    self.execute_helper("let kept = 20;")
+    reply, _ = self.execute_helper('throw "fails"')
+    self.assertEqual(reply["content"]["status"], "error")
+    reply, outs = self.execute_helper("kept + 1")
+    results = [m for m in outs if m["msg_type"] == "execute_result"]
+    self.assertEqual(results[0]["content"]["data"]["text/plain"], "21")
+
+
+RHAI_EXTRA_TESTS = {
+    "test_update_display_data": test_update_display_data,
+    "test_error_traceback_has_caret": test_error_traceback_has_caret,
+    "test_state_survives_a_failed_cell": test_state_survives_a_failed_cell,
 }
 
 
@@ -56,6 +111,8 @@ def main():
     if args.extra:
         with open(args.extra) as f:
             attrs.update(json.load(f))
+    if args.samples == "rhai":
+        attrs.update(RHAI_EXTRA_TESTS)
     cls = type("GaugebookKernelTests", (jkt.KernelTests,), attrs)
     suite = unittest.defaultTestLoader.loadTestsFromTestCase(cls)
     result = unittest.TextTestRunner(stream=sys.stderr, verbosity=2).run(suite)
