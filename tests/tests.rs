@@ -4,6 +4,7 @@ mod bridge;
 mod calib;
 mod common;
 mod gauge;
+mod layout;
 mod rosette;
 mod signal;
 mod spring;
