@@ -72,6 +72,7 @@ pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError}
 
 // Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
 mod bridge;
+mod chain;
 mod gauge;
 mod rosette;
 mod stress;
@@ -80,6 +81,7 @@ pub use bridge::{
     GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
     StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
 };
+pub use chain::{Adc, AdcReference, Amplifier, InputNoise, PEAK_TO_PEAK_PER_RMS, SignalChain};
 pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
 pub use rosette::{
     DeltaRosette, PrincipalStrains, RectangularRosette, StrainState, correct_orthogonal,

@@ -2,6 +2,7 @@
 
 mod bridge;
 mod calib;
+mod chain;
 mod common;
 mod gauge;
 mod layout;
@@ -10,3 +11,4 @@ mod signal;
 mod spring;
 mod standards;
 mod uncertainty;
+mod units;
