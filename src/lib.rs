@@ -89,5 +89,9 @@ pub use rosette::{
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
+// Scripting: the Rhai surface, sessions, runner support (feature `script`).
+#[cfg(feature = "script")]
+pub mod script;
+
 #[cfg(feature = "cli")]
 pub mod cli;

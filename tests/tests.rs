@@ -7,6 +7,8 @@ mod common;
 mod gauge;
 mod layout;
 mod rosette;
+#[cfg(feature = "script")]
+mod script;
 mod signal;
 mod spring;
 mod standards;
