@@ -215,7 +215,9 @@ const COMPOUND_NAMED: [(&str, Dimension); 7] = [
 fn compound(dim: Dimension) -> Option<String> {
     let base = |d: Dimension| d.0[3] == 0 && d.0[5] == 0 && d.0[6] == 0;
     let weight = |d: Dimension| d.0.iter().map(|e| i32::from(e.unsigned_abs())).sum::<i32>();
-    let mut best: Option<(i32, Vec<(&str, i32)>, Dimension)> = None;
+    // (score, named units with their powers, remaining base dimension)
+    type Candidate = (i32, Vec<(&'static str, i32)>, Dimension);
+    let mut best: Option<Candidate> = None;
     let mut consider = |named: Vec<(&'static str, i32)>, rest: Dimension| {
         if !base(rest) {
             return;
