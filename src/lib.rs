@@ -34,8 +34,14 @@ pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 
 // Spring elements, materials, layouts and check-weighing (issue 5).
+mod layout;
 mod material;
 mod spring;
+pub use layout::{
+    BridgeReport, BridgeWiring, DesignCriteria, DesignPoint, Layout, Placement, PlacementError,
+    ResponseMatrix, SensitivityRow, SensitivityTable, SweepTable, solve_for_rated_output, sweep,
+    sweep2,
+};
 pub use material::{Material, material, materials};
 pub use spring::{
     AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
@@ -82,6 +88,10 @@ pub use rosette::{
     correct_single, correct_uniaxial,
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
+
+// Scripting: the Rhai surface, sessions, runner support (feature `script`).
+#[cfg(feature = "script")]
+pub mod script;
 
 #[cfg(feature = "cli")]
 pub mod cli;

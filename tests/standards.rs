@@ -8,7 +8,7 @@ use gaugebook::{
     R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74, evaluate_r60,
 };
 
-/// OIML R 60:2021 Table 2 (from memory): n_LC ranges per class.
+/// OIML R 60-1:2021 5.1.2 (values from memory): n_LC ranges per class.
 #[test]
 fn r60_interval_ranges() {
     assert_eq!(OimlClass::A.interval_range(), (50_000, None));
@@ -17,8 +17,8 @@ fn r60_interval_ranges() {
     assert_eq!(OimlClass::D.interval_range(), (100, Some(1_000)));
 }
 
-/// OIML R 60:2021 Table 5 (from memory): MPE = p_LC × 0.5 / 1.0 / 1.5 v with band edges per
-/// class; p_LC = 0.7.
+/// OIML R 60-1:2021 5.3.2 and Table 4 (band values from memory): MPE = p_LC × 0.5 / 1.0 /
+/// 1.5 v with band edges per class; p_LC = 0.7.
 #[test]
 fn r60_mpe_bands() {
     let cases = [
@@ -125,6 +125,35 @@ fn r60_creep_dr_and_temperature() {
     };
     let r = evaluate_r60(&cell, &run, &bad).unwrap();
     assert_eq!(r.failures()[0].name, "creep between 20 and 30 min");
+}
+
+/// R 60-3:2021 2.1.2.3: without a test load at 75 % of the range the reference indication is
+/// interpolated between the adjacent loads; a straight run then has zero error everywhere.
+#[test]
+fn r60_reference_line_interpolated() {
+    let cell = R60LoadCell::new(OimlClass::C, 3000, EMAX, 0.0, 1.0).unwrap();
+    let loads: Vec<f64> = (0..=5).map(|i| i as f64 * 2000.0).collect();
+    // A bow: the line through 0 and 7500 N (between 6000 and 8000) sets the errors.
+    let y: Vec<f64> = loads
+        .iter()
+        .map(|l| 2e-7 * l + 1e-13 * l * (EMAX - l))
+        .collect();
+    let mut run = CalibrationRun::force_in_output_ratio();
+    run.push_series(&loads, &y, Direction::Ascending, 0.0)
+        .unwrap();
+    let v = evaluate_r60(&cell, &run, &R60Extras::default()).unwrap();
+    let y75 = 2e-7 * 6000.0
+        + 1e-13 * 6000.0 * 4000.0
+        + (2e-7 * 8000.0 + 1e-13 * 8000.0 * 2000.0 - 2e-7 * 6000.0 - 1e-13 * 6000.0 * 4000.0)
+            * 0.75;
+    let slope = y75 / 7500.0;
+    let at = |l: f64| (2e-7 * l + 1e-13 * l * (EMAX - l) - slope * l) / slope;
+    let e = v
+        .checks
+        .iter()
+        .find(|c| c.name == "error at 4000 N (ascending, series 0)")
+        .unwrap();
+    assert_close(e.value, at(4000.0), 1e-9, 1e-12);
 }
 
 #[test]

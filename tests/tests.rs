@@ -5,7 +5,10 @@ mod calib;
 mod chain;
 mod common;
 mod gauge;
+mod layout;
 mod rosette;
+#[cfg(feature = "script")]
+mod script;
 mod signal;
 mod spring;
 mod standards;

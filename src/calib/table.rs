@@ -31,6 +31,11 @@ pub struct ReportRow {
 
 impl ReportRow {
     /// A row without a limit.
+    ///
+    /// ```
+    /// let r = gaugebook::ReportRow::new("creep", 0.01, "% RO");
+    /// assert!(r.limit.is_none() && r.passed.is_none());
+    /// ```
     pub fn new(name: &str, value: f64, unit: &str) -> ReportRow {
         ReportRow {
             name: name.to_string(),
@@ -42,6 +47,10 @@ impl ReportRow {
     }
 
     /// The value to six significant digits.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::ReportRow::new("x", 1.0 / 3.0, "").value_text(), "0.333333");
+    /// ```
     pub fn value_text(&self) -> String {
         sig(self.value, 6)
     }
@@ -104,6 +113,10 @@ fn csv_field(s: &str) -> String {
 
 impl ReportTable {
     /// An empty table.
+    ///
+    /// ```
+    /// assert!(gaugebook::ReportTable::new("t").rows.is_empty());
+    /// ```
     pub fn new(title: &str) -> ReportTable {
         ReportTable {
             title: title.to_string(),
@@ -113,6 +126,11 @@ impl ReportTable {
     }
 
     /// Markdown: a title line, a pipe table, notes as a list.
+    ///
+    /// ```
+    /// let t = gaugebook::ReportTable::new("Budget");
+    /// assert!(t.to_markdown().starts_with("**Budget**"));
+    /// ```
     pub fn to_markdown(&self) -> String {
         let mut s = format!(
             "**{}**\n\n| name | value | unit | limit | verdict |\n|---|---:|---|---|---|\n",
@@ -139,6 +157,12 @@ impl ReportTable {
     }
 
     /// CSV (RFC 4180 quoting) with a header row; notes are not included.
+    ///
+    /// ```
+    /// let mut t = gaugebook::ReportTable::new("t");
+    /// t.rows.push(gaugebook::ReportRow::new("a \"b\"", 1.0, "N"));
+    /// assert!(t.to_csv().ends_with("\"a \"\"b\"\"\",1,N,,\n"));
+    /// ```
     pub fn to_csv(&self) -> String {
         let mut s = String::from("name,value,unit,limit,verdict\n");
         for r in &self.rows {
@@ -183,6 +207,11 @@ impl ReportTable {
     }
 
     /// Plain text: the markdown form.
+    ///
+    /// ```
+    /// let t = gaugebook::ReportTable::new("t");
+    /// assert_eq!(t.to_text(), t.to_markdown());
+    /// ```
     pub fn to_text(&self) -> String {
         self.to_markdown()
     }
