@@ -7,6 +7,7 @@ mod common;
 mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
+mod layout;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;
@@ -15,3 +16,4 @@ mod spring;
 mod standards;
 mod uncertainty;
 mod units;
+mod weighing;
