@@ -280,3 +280,20 @@ fn iso376_bad_input() {
     );
     assert!(classify_iso376(&d).is_err());
 }
+
+/// OIML R 60-1:2021 3.5: Z = (E_max − E_min)/(2 DR); a declared Z = 5000 on 10 kN allows
+/// DR ≤ 1 N, tighter here than 0.5 v = 1.67 N.
+#[test]
+fn r60_declared_z() {
+    let (mut cell, run) = c3_run(&[0.0; 11]);
+    cell.z = Some(5000.0);
+    let extras = R60Extras {
+        dead_load_return: Some(1.2),
+        ..R60Extras::default()
+    };
+    let v = evaluate_r60(&cell, &run, &extras).unwrap();
+    let f = v.failures();
+    assert_eq!(f.len(), 1, "{v}");
+    assert_eq!(f[0].name, "DR against the declared Z");
+    assert_close(f[0].limit, 1.0, 1e-12, 0.0);
+}
