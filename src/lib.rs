@@ -44,5 +44,11 @@ pub use bridge::{
 };
 pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
 
+// Figures (issue 6, feature `plot`).
+#[cfg(feature = "plot")]
+mod plot;
+#[cfg(feature = "plot")]
+pub use plot::{Axis, Figure, Panel, PlotError, base64_encode, histogram_bins};
+
 #[cfg(feature = "cli")]
 pub mod cli;

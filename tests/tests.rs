@@ -3,4 +3,6 @@
 mod bridge;
 mod common;
 mod gauge;
+#[cfg(feature = "plot")]
+mod plot;
 mod signal;
