@@ -32,23 +32,62 @@ pub use signal::{
 
 pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
+
+// Spring elements, materials, layouts and check-weighing (issue 5).
+mod material;
+mod spring;
+pub use material::{Material, material, materials};
+pub use spring::{
+    AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
+    Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
+    SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
+};
+
+// Calibration, class evaluation against standards, uncertainty (issue 7).
+mod calib;
+mod standards;
+mod uncertainty;
+pub use calib::{
+    CalibrationPoint, CalibrationRun, Characterisation, CharacteriseOptions, CreepHold, Direction,
+    Figure, Fit, FitModel, Line, LoadKind, ReferenceLine, ReportRow, ReportTable, Series, tc_span,
+    tc_zero,
+};
+pub use standards::{
+    Check, ClassVerdict, E74Result, Iso376Class, Iso376Data, Iso376Limits, Iso376Result,
+    Iso376Step, OimlClass, R60Extras, R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74,
+    evaluate_r60,
+};
+pub use uncertainty::{
+    Budget, Contribution, Distribution, Expanded, GumResult, Input, IntervalKind, McResult,
+    MonteCarlo, Validation, coverage_factor, ln_gamma, sample_correlation, student_t_quantile,
+    student_t_two_sided_tail,
+};
 pub use units::{Dimension, Kind, OutputRatio, Quantity, Strain, Unit, UnitError};
 
 // Circuits and gauges: bridges, gauges, rosettes, plane stress, signal chain.
 mod bridge;
+mod chain;
 mod gauge;
+mod rosette;
+mod stress;
 pub use bridge::{
     Arm, ArmId, Arrangement, COPPER_RESISTIVITY, COPPER_TEMPERATURE_COEFFICIENT, Excitation,
     GaugeDissipation, LeadWire, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition,
     StrainInverse, SupplyLeads, SupplyWiring, Trim, TrimKind, WheatstoneBridge,
 };
+pub use chain::{Adc, AdcReference, Amplifier, InputNoise, PEAK_TO_PEAK_PER_RMS, SignalChain};
 pub use gauge::{DEFAULT_CALIBRATION_POISSON, Gauge, ThermalOutput};
+pub use rosette::{
+    DeltaRosette, PrincipalStrains, RectangularRosette, StrainState, correct_orthogonal,
+    correct_single, correct_uniaxial,
+};
+pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
 // Figures (issue 6, feature `plot`).
 #[cfg(feature = "plot")]
 mod plot;
 #[cfg(feature = "plot")]
-pub use plot::{Axis, Figure, Panel, PlotError, base64_encode, histogram_bins};
+pub use plot::{Axis, Panel, Plot, PlotError, base64_encode, histogram_bins};
 
 #[cfg(feature = "cli")]
 pub mod cli;

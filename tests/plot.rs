@@ -1,15 +1,13 @@
 //! Figures: SVG and PNG output, thinning of long series, atomic saving, MIME bundles, errors.
 //! The PNG checks decode the image again with the png crate (0.17) and look at its pixels.
 
-use gaugebook::{
-    Axis, Figure, MimeBundle, Panel, PlotError, ToMime, base64_encode, histogram_bins,
-};
+use gaugebook::{Axis, MimeBundle, Panel, Plot, PlotError, ToMime, base64_encode, histogram_bins};
 
-fn sine_figure() -> Figure {
+fn sine_figure() -> Plot {
     let t: Vec<f64> = (0..2000).map(|k| k as f64 * 1e-3).collect();
     let a: Vec<f64> = t.iter().map(|t| 100.0 * (6.0 * t).sin()).collect();
     let b: Vec<f64> = t.iter().map(|t| 60.0 * (9.0 * t).cos()).collect();
-    Figure::time_series(
+    Plot::time_series(
         "creep hold",
         &t,
         Axis::new("time", "s"),
@@ -67,7 +65,7 @@ fn millions_of_points_stay_small_and_keep_spikes() {
     let panel = Panel::new(Axis::new("time", "s"), Axis::new("load", "kN"))
         .sampled("load", 0.0, 1e-3, &y)
         .unwrap();
-    let f = Figure::new("long").with_panel(panel);
+    let f = Plot::new("long").with_panel(panel);
     let svg = f.to_svg().unwrap();
     // Thinned per pixel column: about 4 points per column of a 900-px figure, not 2 M.
     assert!(svg.len() < 400_000, "svg is {} bytes", svg.len());
@@ -86,7 +84,7 @@ fn calibration_figure_has_residual_panel() {
     let load = [0.0, 2.0, 4.0, 6.0, 8.0, 10.0];
     let out = [0.0002, 0.4001, 0.7996, 1.2003, 1.6001, 1.9998];
     let fit: Vec<f64> = load.iter().map(|l| 0.2 * l).collect();
-    let f = Figure::calibration(
+    let f = Plot::calibration(
         "cal",
         &load,
         &out,
@@ -113,7 +111,7 @@ fn histogram_counts_every_value() {
         histogram_bins(&[3.0, 3.0], 2).unwrap(),
         (vec![2.5, 3.0, 3.5], vec![0.0, 2.0])
     );
-    let f = Figure::histogram(
+    let f = Plot::histogram(
         "h",
         &[0.0, 0.5, 1.0, 1.0, 2.0],
         2,
@@ -121,8 +119,8 @@ fn histogram_counts_every_value() {
     )
     .unwrap();
     assert!(f.to_svg().unwrap().contains("<rect"));
-    assert!(Figure::histogram("h", &[], 2, Axis::new("x", "")).is_err());
-    assert!(Figure::histogram("h", &[1.0], 0, Axis::new("x", "")).is_err());
+    assert!(Plot::histogram("h", &[], 2, Axis::new("x", "")).is_err());
+    assert!(Plot::histogram("h", &[1.0], 0, Axis::new("x", "")).is_err());
 }
 
 #[test]
@@ -163,7 +161,7 @@ fn mime_bundle_carries_svg_and_base64_png() {
     assert_eq!(b.get("image/png").unwrap(), base64_encode(&png));
     assert_eq!(b.get("image/png").unwrap().len(), png.len().div_ceil(3) * 4);
     // An empty figure shows its reason as text only.
-    let e = Figure::new("empty").to_mime();
+    let e = Plot::new("empty").to_mime();
     assert_eq!(e.mime_types().count(), 1);
     assert!(e.get("text/plain").unwrap().contains("nothing to plot"));
 }
@@ -186,5 +184,5 @@ fn bad_series_are_typed_errors() {
         Err(PlotError::Empty { .. })
     ));
     assert!(p.sampled("a", 0.0, 0.0, &[1.0]).is_err());
-    assert!(Figure::new("f").with_size(9000, 100).is_err());
+    assert!(Plot::new("f").with_size(9000, 100).is_err());
 }

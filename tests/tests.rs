@@ -1,8 +1,15 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
 mod bridge;
+mod calib;
+mod chain;
 mod common;
 mod gauge;
 #[cfg(feature = "plot")]
 mod plot;
+mod rosette;
 mod signal;
+mod spring;
+mod standards;
+mod uncertainty;
+mod units;

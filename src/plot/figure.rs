@@ -1,4 +1,4 @@
-//! The figure value: a title, a size and one or more panels stacked top to bottom, each with
+//! The figure value ([`Plot`]; the name `Figure` belongs to the calibration figures of merit): a title, a size and one or more panels stacked top to bottom, each with
 //! unit-labelled axes and its series (lines, points, bars). Data are copied in when a series is
 //! added, and long lines are thinned then (min/max per column of a fine grid), so a figure of
 //! millions of samples stays small and quick to draw.
@@ -265,32 +265,32 @@ impl Panel {
 /// A figure: title, size in pixels (SVG user units) and panels stacked top to bottom.
 ///
 /// ```
-/// use gaugebook::{Axis, Figure};
+/// use gaugebook::{Axis, Plot};
 /// let t: Vec<f64> = (0..1000).map(|k| k as f64 * 1e-3).collect();
 /// let a: Vec<f64> = t.iter().map(|t| (40.0 * t).sin()).collect();
-/// let fig = Figure::time_series("bar test", &t, Axis::new("time", "s"), &[("sg1", &a[..])], Axis::new("strain", "µε"))?;
+/// let fig = Plot::time_series("bar test", &t, Axis::new("time", "s"), &[("sg1", &a[..])], Axis::new("strain", "µε"))?;
 /// let svg = fig.to_svg()?;
 /// assert!(svg.starts_with("<svg") && svg.contains("strain (µε)"));
 /// # Ok::<(), gaugebook::PlotError>(())
 /// ```
 #[derive(Clone, Debug, PartialEq)]
-pub struct Figure {
+pub struct Plot {
     pub(crate) title: String,
     pub(crate) width: u32,
     pub(crate) height: u32,
     pub(crate) panels: Vec<Panel>,
 }
 
-impl Figure {
+impl Plot {
     /// An empty figure of 900 × 500 pixels.
     ///
     /// ```
-    /// let f = gaugebook::Figure::new("empty");
+    /// let f = gaugebook::Plot::new("empty");
     /// assert_eq!(f.size(), (900, 500));
     /// assert!(f.to_svg().is_err()); // nothing to draw
     /// ```
-    pub fn new(title: impl Into<String>) -> Figure {
-        Figure {
+    pub fn new(title: impl Into<String>) -> Plot {
+        Plot {
             title: title.into(),
             width: 900,
             height: 500,
@@ -301,12 +301,12 @@ impl Figure {
     /// Sets the size; each side from 100 to 8000 pixels.
     ///
     /// ```
-    /// let f = gaugebook::Figure::new("f").with_size(640, 480)?;
+    /// let f = gaugebook::Plot::new("f").with_size(640, 480)?;
     /// assert_eq!(f.size(), (640, 480));
-    /// assert!(gaugebook::Figure::new("f").with_size(10, 480).is_err());
+    /// assert!(gaugebook::Plot::new("f").with_size(10, 480).is_err());
     /// # Ok::<(), gaugebook::PlotError>(())
     /// ```
-    pub fn with_size(mut self, width: u32, height: u32) -> Result<Figure, PlotError> {
+    pub fn with_size(mut self, width: u32, height: u32) -> Result<Plot, PlotError> {
         // 100 px leaves room for axis labels; 8000 px bounds a PNG buffer at 192 MB.
         for (name, v) in [("figure width", width), ("figure height", height)] {
             if !(100..=8000).contains(&v) {
@@ -325,12 +325,12 @@ impl Figure {
     /// Adds a panel below the others.
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure, Panel};
-    /// let f = Figure::new("f").with_panel(Panel::new(Axis::new("x", "m"), Axis::new("y", "m")).line("a", &[0.0, 1.0], &[1.0, 0.0])?);
+    /// use gaugebook::{Axis, Plot, Panel};
+    /// let f = Plot::new("f").with_panel(Panel::new(Axis::new("x", "m"), Axis::new("y", "m")).line("a", &[0.0, 1.0], &[1.0, 0.0])?);
     /// assert_eq!(f.panel_count(), 1);
     /// # Ok::<(), gaugebook::PlotError>(())
     /// ```
-    pub fn with_panel(mut self, panel: Panel) -> Figure {
+    pub fn with_panel(mut self, panel: Panel) -> Plot {
         self.panels.push(panel);
         self
     }
@@ -338,7 +338,7 @@ impl Figure {
     /// Width and height in pixels.
     ///
     /// ```
-    /// assert_eq!(gaugebook::Figure::new("f").size(), (900, 500));
+    /// assert_eq!(gaugebook::Plot::new("f").size(), (900, 500));
     /// ```
     pub fn size(&self) -> (u32, u32) {
         (self.width, self.height)
@@ -347,7 +347,7 @@ impl Figure {
     /// Number of panels.
     ///
     /// ```
-    /// assert_eq!(gaugebook::Figure::new("f").panel_count(), 0);
+    /// assert_eq!(gaugebook::Plot::new("f").panel_count(), 0);
     /// ```
     pub fn panel_count(&self) -> usize {
         self.panels.len()
@@ -356,7 +356,7 @@ impl Figure {
     /// The title.
     ///
     /// ```
-    /// assert_eq!(gaugebook::Figure::new("creep at 20 kN").title(), "creep at 20 kN");
+    /// assert_eq!(gaugebook::Plot::new("creep at 20 kN").title(), "creep at 20 kN");
     /// ```
     pub fn title(&self) -> &str {
         &self.title
@@ -365,9 +365,9 @@ impl Figure {
     /// Several channels against one time axis, in one panel. Errors as for [`Panel::line`].
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure};
+    /// use gaugebook::{Axis, Plot};
     /// let t = [0.0, 0.001, 0.002];
-    /// let f = Figure::time_series("zero", &t, Axis::new("time", "s"), &[("sg1", &[0.0, 1.0, 0.5][..]), ("sg2", &[1.0, 0.0, 0.2][..])], Axis::new("strain", "µε"))?;
+    /// let f = Plot::time_series("zero", &t, Axis::new("time", "s"), &[("sg1", &[0.0, 1.0, 0.5][..]), ("sg2", &[1.0, 0.0, 0.2][..])], Axis::new("strain", "µε"))?;
     /// let svg = f.to_svg()?;
     /// assert!(svg.contains("sg1") && svg.contains("sg2")); // legend
     /// # Ok::<(), gaugebook::PlotError>(())
@@ -378,7 +378,7 @@ impl Figure {
         time_axis: Axis,
         channels: &[(&str, &[f64])],
         value_axis: Axis,
-    ) -> Result<Figure, PlotError> {
+    ) -> Result<Plot, PlotError> {
         if channels.is_empty() {
             return Err(PlotError::Empty {
                 what: "time series figure (no channels)".to_string(),
@@ -388,18 +388,18 @@ impl Figure {
         for (name, y) in channels {
             panel = panel.line(name, time, y)?;
         }
-        Ok(Figure::new(title).with_panel(panel))
+        Ok(Plot::new(title).with_panel(panel))
     }
 
     /// A calibration curve: measured points and the fitted line over `x`, and beneath them the
     /// residuals (measured − fitted) with a zero line. Errors as for [`Panel::line`].
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure};
+    /// use gaugebook::{Axis, Plot};
     /// let load = [0.0, 2.0, 4.0, 6.0, 8.0, 10.0];
     /// let out = [0.0001, 0.4003, 0.7998, 1.2004, 1.5999, 2.0002];
     /// let fit: Vec<f64> = load.iter().map(|l| 0.2 * l).collect();
-    /// let f = Figure::calibration("sensitivity", &load, &out, &fit, Axis::new("load", "kN"), Axis::new("output", "mV/V"))?;
+    /// let f = Plot::calibration("sensitivity", &load, &out, &fit, Axis::new("load", "kN"), Axis::new("output", "mV/V"))?;
     /// assert_eq!(f.panel_count(), 2);
     /// assert!(f.to_svg()?.contains("residual (mV/V)"));
     /// # Ok::<(), gaugebook::PlotError>(())
@@ -411,7 +411,7 @@ impl Figure {
         fitted: &[f64],
         x_axis: Axis,
         y_axis: Axis,
-    ) -> Result<Figure, PlotError> {
+    ) -> Result<Plot, PlotError> {
         check_xy("measured", x, measured)?;
         check_xy("fitted", x, fitted)?;
         let residual: Vec<f64> = measured.iter().zip(fitted).map(|(m, f)| m - f).collect();
@@ -426,15 +426,15 @@ impl Figure {
         let bottom = Panel::new(x_axis, Axis::new("residual", y_axis.unit))
             .points("residual", x, &residual)?
             .with_zero_line();
-        Ok(Figure::new(title).with_panel(top).with_panel(bottom))
+        Ok(Plot::new(title).with_panel(top).with_panel(bottom))
     }
 
     /// A histogram of `values` in `bins` equal bins spanning their range. Errors: no values, a
     /// non-finite value, or `bins` of 0.
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure};
-    /// let f = Figure::histogram("noise", &[0.1, 0.2, 0.2, 0.3, 0.9], 4, Axis::new("zero", "µV/V"))?;
+    /// use gaugebook::{Axis, Plot};
+    /// let f = Plot::histogram("noise", &[0.1, 0.2, 0.2, 0.3, 0.9], 4, Axis::new("zero", "µV/V"))?;
     /// assert!(f.to_svg()?.contains("<rect"));
     /// # Ok::<(), gaugebook::PlotError>(())
     /// ```
@@ -443,10 +443,10 @@ impl Figure {
         values: &[f64],
         bins: usize,
         axis: Axis,
-    ) -> Result<Figure, PlotError> {
+    ) -> Result<Plot, PlotError> {
         let (edges, counts) = histogram_bins(values, bins)?;
         let panel = Panel::new(axis, Axis::new("count", "")).bars("count", &edges, &counts)?;
-        Ok(Figure::new(title).with_panel(panel))
+        Ok(Plot::new(title).with_panel(panel))
     }
 }
 

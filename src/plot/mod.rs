@@ -16,4 +16,4 @@ mod thin;
 
 pub use base64::base64_encode;
 pub use error::PlotError;
-pub use figure::{Axis, Figure, Panel, histogram_bins};
+pub use figure::{Axis, Panel, Plot, histogram_bins};

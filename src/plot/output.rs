@@ -3,18 +3,18 @@
 
 use super::base64::base64_encode;
 use super::error::PlotError;
-use super::figure::Figure;
+use super::figure::Plot;
 use super::render;
 use crate::{MimeBundle, ToMime};
 use std::io::Write;
 use std::path::Path;
 
-impl Figure {
+impl Plot {
     /// The figure as SVG text (no font file needed to view it).
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure};
-    /// let f = Figure::histogram("h", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
+    /// use gaugebook::{Axis, Plot};
+    /// let f = Plot::histogram("h", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
     /// assert!(f.to_svg()?.contains("x (mm)"));
     /// # Ok::<(), gaugebook::PlotError>(())
     /// ```
@@ -25,8 +25,8 @@ impl Figure {
     /// The figure as PNG bytes, text drawn with the embedded DejaVu Sans font.
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure};
-    /// let f = Figure::histogram("h", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
+    /// use gaugebook::{Axis, Plot};
+    /// let f = Plot::histogram("h", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
     /// assert_eq!(&f.to_png()?[..8], b"\x89PNG\r\n\x1a\n");
     /// # Ok::<(), gaugebook::PlotError>(())
     /// ```
@@ -39,10 +39,10 @@ impl Figure {
     /// `path`, so a reader never sees a half-written file and an old file survives a failure.
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure};
+    /// use gaugebook::{Axis, Plot};
     /// let dir = std::env::temp_dir().join(format!("gaugebook-doc-{}", std::process::id()));
     /// std::fs::create_dir_all(&dir).unwrap();
-    /// let f = Figure::histogram("h", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
+    /// let f = Plot::histogram("h", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
     /// f.save(dir.join("h.svg"))?;
     /// assert!(std::fs::read_to_string(dir.join("h.svg")).unwrap().starts_with("<svg"));
     /// assert!(f.save(dir.join("h.bmp")).is_err());
@@ -92,14 +92,14 @@ impl Figure {
     }
 }
 
-impl ToMime for Figure {
+impl ToMime for Plot {
     /// `text/plain` (title and panel count), `image/svg+xml` and `image/png` (base64), so the
     /// kernel shows the figure inline. A figure that cannot be drawn shows only the text, with
     /// the reason.
     ///
     /// ```
-    /// use gaugebook::{Axis, Figure, ToMime};
-    /// let f = Figure::histogram("noise", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
+    /// use gaugebook::{Axis, Plot, ToMime};
+    /// let f = Plot::histogram("noise", &[1.0, 2.0, 2.5], 3, Axis::new("x", "mm"))?;
     /// let b = f.to_mime();
     /// assert!(b.get("image/svg+xml").unwrap().starts_with("<svg"));
     /// assert!(b.get("image/png").unwrap().starts_with("iVBORw0KGgo")); // base64 of the PNG signature

@@ -1,4 +1,4 @@
-//! Drawing a [`Figure`] with plotters onto any backend (SVG text or an RGB buffer), and the
+//! Drawing a [`Plot`] with plotters onto any backend (SVG text or an RGB buffer), and the
 //! PNG encoding of that buffer.
 //!
 //! Layout and colours are this project's own: a white ground, a thin grey frame and light grid,
@@ -6,7 +6,7 @@
 //! burnt orange, green, violet, ochre, teal, grey) that stay apart in greyscale by lightness.
 
 use super::error::PlotError;
-use super::figure::{Figure, Panel, Style};
+use super::figure::{Panel, Plot, Style};
 use super::thin::thin;
 use plotters::coord::Shift;
 use plotters::prelude::*;
@@ -47,7 +47,7 @@ fn render_err(e: impl std::fmt::Display) -> PlotError {
 }
 
 /// Draws the figure on a backend.
-pub(crate) fn draw<DB: DrawingBackend>(fig: &Figure, backend: DB) -> Result<(), PlotError> {
+pub(crate) fn draw<DB: DrawingBackend>(fig: &Plot, backend: DB) -> Result<(), PlotError> {
     ensure_font()?;
     if fig.panels.iter().all(|p| p.series.is_empty()) {
         return Err(PlotError::Empty {
@@ -272,7 +272,7 @@ fn legend_corner(panel: &Panel, (x0, x1): (f64, f64), (y0, y1): (f64, f64)) -> S
 }
 
 /// The figure as SVG text.
-pub(crate) fn svg(fig: &Figure) -> Result<String, PlotError> {
+pub(crate) fn svg(fig: &Plot) -> Result<String, PlotError> {
     let mut out = String::new();
     draw(
         fig,
@@ -282,7 +282,7 @@ pub(crate) fn svg(fig: &Figure) -> Result<String, PlotError> {
 }
 
 /// The figure as PNG bytes (8-bit RGB).
-pub(crate) fn png(fig: &Figure) -> Result<Vec<u8>, PlotError> {
+pub(crate) fn png(fig: &Plot) -> Result<Vec<u8>, PlotError> {
     let (w, h) = (fig.width, fig.height);
     let mut rgb = vec![255u8; w as usize * h as usize * 3];
     draw(fig, BitMapBackend::with_buffer(&mut rgb, (w, h)))?;

@@ -5,10 +5,14 @@
 
 mod dimension;
 mod error;
+mod format;
+mod interop;
 mod kind;
+mod parse;
 mod quantity;
 pub mod si;
 mod strain;
+mod table;
 mod unit;
 
 pub use dimension::Dimension;
