@@ -7,9 +7,13 @@ mod common;
 mod gauge;
 #[cfg(feature = "plot")]
 mod plot;
+mod layout;
 mod rosette;
+#[cfg(feature = "script")]
+mod script;
 mod signal;
 mod spring;
 mod standards;
 mod uncertainty;
 mod units;
+mod weighing;

@@ -96,6 +96,11 @@ macro_rules! p {
 const ONE: Dimension = Dimension::NONE;
 
 /// The specification of the table, in the order the trade meets the units.
+///
+/// Left out on purpose: the coulomb `C` and the farad `F`, because `25 C` and `70 F` are the
+/// usual slips for °C and °F and would otherwise be read, silently, as a charge and a
+/// capacitance; the kelvin-like `KΩ` (write `kΩ`); the year `a`, the are `a` and the dalton `u`,
+/// which would shadow prefixes.
 fn specs() -> Vec<Spec> {
     use Kind::*;
     let uom = |display, aliases, probe, name, kind, prefixable| Spec {
