@@ -37,6 +37,7 @@ pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 mod layout;
 mod material;
 mod spring;
+mod weighing;
 pub use layout::{
     BridgeReport, BridgeWiring, DesignCriteria, DesignPoint, Layout, Placement, PlacementError,
     ResponseMatrix, SensitivityRow, SensitivityTable, SweepTable, solve_for_rated_output, sweep,
@@ -48,6 +49,7 @@ pub use spring::{
     Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
     SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
 };
+pub use weighing::{CheckWeigher, CheckWeighing, STANDARD_GRAVITY, WEIGHING_CAUTION};
 
 // Calibration, class evaluation against standards, uncertainty (issue 7).
 mod calib;

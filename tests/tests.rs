@@ -14,3 +14,4 @@ mod spring;
 mod standards;
 mod uncertainty;
 mod units;
+mod weighing;
