@@ -284,12 +284,13 @@ fn compound(dim: Dimension) -> Option<String> {
     })
 }
 
-/// `value unit`, or the bare number for an empty unit.
-pub(crate) fn join(value: f64, unit: &str) -> String {
+/// `value unit`, or the bare number for an empty unit (the tests' shorthand).
+#[cfg(test)]
+fn join(value: f64, unit: &str) -> String {
     join_sig(value, unit, SIGNIFICANT)
 }
 
-/// [`join`] with `sig` significant figures.
+/// `value unit` with `sig` significant figures, or the bare number for an empty unit.
 pub(crate) fn join_sig(value: f64, unit: &str, sig: i32) -> String {
     let n = number_sig(value, sig);
     if unit.is_empty() {
