@@ -34,14 +34,22 @@ pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 
 // Spring elements, materials, layouts and check-weighing (issue 5).
+mod layout;
 mod material;
 mod spring;
+mod weighing;
+pub use layout::{
+    BridgeReport, BridgeWiring, DesignCriteria, DesignPoint, Layout, Placement, PlacementError,
+    ResponseMatrix, SensitivityRow, SensitivityTable, SweepTable, solve_for_rated_output, sweep,
+    sweep2,
+};
 pub use material::{Material, material, materials};
 pub use spring::{
     AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
     Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
     SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
 };
+pub use weighing::{CheckWeigher, CheckWeighing, STANDARD_GRAVITY, WEIGHING_CAUTION};
 
 // Calibration, class evaluation against standards, uncertainty (issue 7).
 mod calib;
@@ -82,6 +90,12 @@ pub use rosette::{
     correct_single, correct_uniaxial,
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
+
+// Figures (issue 6, feature `plot`).
+#[cfg(feature = "plot")]
+mod plot;
+#[cfg(feature = "plot")]
+pub use plot::{Axis, Panel, Plot, PlotError, base64_encode, histogram_bins};
 
 // Scripting: the Rhai surface, sessions, runner support (feature `script`).
 #[cfg(feature = "script")]

@@ -5,6 +5,9 @@ mod calib;
 mod chain;
 mod common;
 mod gauge;
+#[cfg(feature = "plot")]
+mod plot;
+mod layout;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;
@@ -13,3 +16,4 @@ mod spring;
 mod standards;
 mod uncertainty;
 mod units;
+mod weighing;

@@ -566,14 +566,25 @@ impl Quantity {
 }
 
 /// Writes the value in its display unit, else in a unit chosen from its dimension and kind,
-/// with 6 significant figures: `0.4995 mV/V`, `1000 µε`, `174.65 kΩ`.
+/// with 6 significant figures (`{:.3}` asks for 3): `0.4995 mV/V`, `1000 µε`, `174.65 kΩ`.
+///
+/// ```
+/// use gaugebook::units::Quantity;
+/// let r = Quantity::parse("350 ohm")?.scale(1.0 / 3.0);
+/// assert_eq!(r.to_string(), "116.667 Ω");
+/// assert_eq!(format!("{r:.3}"), "117 Ω");
+/// # Ok::<(), gaugebook::units::UnitError>(())
+/// ```
 impl fmt::Display for Quantity {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let sig = f
+            .precision()
+            .map_or(format::SIGNIFICANT, |p| p.min(17) as i32);
         let s = match &self.unit {
-            Some(u) => format::join(u.from_si(self.si), u.symbol()),
+            Some(u) => format::join_sig(u.from_si(self.si), u.symbol(), sig),
             None => {
                 let (v, u) = format::auto(self.si, self.dim, self.kind);
-                format::join(v, &u)
+                format::join_sig(v, &u, sig)
             }
         };
         f.write_str(&s)
