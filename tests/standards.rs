@@ -297,3 +297,22 @@ fn r60_declared_z() {
     assert_eq!(f[0].name, "DR against the declared Z");
     assert_close(f[0].limit, 1.0, 1e-12, 0.0);
 }
+
+/// Differential check of the E74 quadratic evaluation against numpy 2.4.6:
+/// `p = np.polyfit(f, y, 2); r = y - np.polyval(p, f); sl = np.polyval(np.polyder(p), f);
+/// s = sqrt(sum((r/sl)**2)/(n - 3))` = 2.5738233940872988 N for the data below.
+#[test]
+fn e74_quadratic_against_numpy() {
+    let f: Vec<f64> = (1..=10).map(|i| i as f64 * 10_000.0).collect();
+    let e = [3.0, -2.0, 1.0, -4.0, 2.0, 0.0, -1.0, 3.0, -2.0, 0.0];
+    let y: Vec<f64> = f
+        .iter()
+        .zip(&e)
+        .map(|(f, e)| 2e-7 * (f + e) + 1e-15 * f * f)
+        .collect();
+    let mut run = CalibrationRun::force_in_output_ratio();
+    run.push_series(&f, &y, Direction::Ascending, 0.0).unwrap();
+    let r = evaluate_e74(&run, 2, 0.01, &[]).unwrap();
+    assert_close(r.s, 2.5738233940872988, 1e-7, 0.0);
+    assert_close(r.llf, 6.177176145809517, 1e-7, 0.0);
+}
