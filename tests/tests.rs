@@ -5,6 +5,8 @@ mod calib;
 mod chain;
 mod common;
 mod gauge;
+#[cfg(feature = "plot")]
+mod plot;
 mod layout;
 mod rosette;
 #[cfg(feature = "script")]
