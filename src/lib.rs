@@ -91,6 +91,12 @@ pub use rosette::{
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
+// Figures (issue 6, feature `plot`).
+#[cfg(feature = "plot")]
+mod plot;
+#[cfg(feature = "plot")]
+pub use plot::{Axis, Panel, Plot, PlotError, base64_encode, histogram_bins};
+
 // Scripting: the Rhai surface, sessions, runner support (feature `script`).
 #[cfg(feature = "script")]
 pub mod script;

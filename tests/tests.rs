@@ -8,6 +8,8 @@ mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
 mod layout;
+#[cfg(feature = "plot")]
+mod plot;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;
