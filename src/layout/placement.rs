@@ -56,6 +56,21 @@ pub struct Placement {
 
 impl Placement {
     /// A gauge at `site` with its grid at `angle`.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// use gaugebook::{Face, Placement, Site};
+    /// use gaugebook::units::Angle;
+    /// let p = Placement::new("X", g, Site::new("top", Face::PlusZ, mm(30.0)), Angle::default());
+    /// assert!(p.thermal_output_expansion.is_none());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(label: impl Into<String>, gauge: Gauge, site: Site, angle: Angle) -> Placement {
         Placement {
             label: label.into(),
@@ -107,6 +122,20 @@ impl Placement {
 
     /// The strain tensor averaged over the grid length along the grid's direction (five-point
     /// Gauss–Legendre; a point value when the gauge has no grid length).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let p = &l.placements()[0];
+    /// let s = p.averaged_strain(l.element(), &Wrench::only(LoadComponent::Fz, 10.0))?;
+    /// assert!(s.exx.value() > 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn averaged_strain(
         &self,
         element: &dyn SpringElement,

@@ -37,6 +37,11 @@ pub enum Stiffness {
 
 impl Stiffness {
     /// The value in SI (N/m or N·m/rad).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Stiffness::Rotational(12.0).value(), 12.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn value(&self) -> f64 {
         match *self {
             Stiffness::Translational(k) | Stiffness::Rotational(k) => k,
@@ -99,6 +104,15 @@ pub struct AttachedMass {
 
 impl AttachedMass {
     /// A point mass and no rotary inertia.
+    ///
+    /// ```
+    /// use gaugebook::AttachedMass;
+    /// use gaugebook::units::Mass;
+    /// use uom::si::{mass::kilogram, moment_of_inertia::kilogram_square_meter};
+    /// let a = AttachedMass::mass(Mass::new::<kilogram>(0.5));
+    /// assert_eq!(a.inertia.get::<kilogram_square_meter>(), 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn mass(mass: Mass) -> AttachedMass {
         AttachedMass {
             mass,
