@@ -322,3 +322,55 @@ pub(crate) fn check_station(model: &str, x: f64, lo: f64, hi: f64) -> Result<(),
         ))
     }
 }
+
+/// A shared element is an element: layouts and scripts can hold one element behind an `Arc`.
+///
+/// ```
+/// use std::sync::Arc;
+/// use gaugebook::{Cantilever, SpringElement, material};
+/// use gaugebook::units::Length;
+/// use uom::si::length::millimeter;
+/// let mm = Length::new::<millimeter>;
+/// let e: Arc<dyn SpringElement + Send + Sync> =
+///     Arc::new(Cantilever::new(material("7075-T6")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?);
+/// assert_eq!(e.kind(), "cantilever bending beam");
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
+impl SpringElement for std::sync::Arc<dyn SpringElement + Send + Sync> {
+    fn kind(&self) -> &'static str {
+        self.as_ref().kind()
+    }
+    fn material(&self) -> &Material {
+        self.as_ref().material()
+    }
+    fn length(&self) -> Length {
+        self.as_ref().length()
+    }
+    fn primary(&self) -> LoadComponent {
+        self.as_ref().primary()
+    }
+    fn sites(&self) -> Vec<Site> {
+        self.as_ref().sites()
+    }
+    fn surface_stress(&self, site: &Site, load: &Wrench) -> Result<SurfaceStress, PhysicsError> {
+        self.as_ref().surface_stress(site, load)
+    }
+    fn surface_strain(&self, site: &Site, load: &Wrench) -> Result<SurfaceStrain, PhysicsError> {
+        self.as_ref().surface_strain(site, load)
+    }
+    fn peak_stress(&self, load: &Wrench) -> Result<PeakStress, PhysicsError> {
+        self.as_ref().peak_stress(load)
+    }
+    fn stiffness(&self) -> Stiffness {
+        self.as_ref().stiffness()
+    }
+    fn rayleigh_share(&self) -> (f64, f64) {
+        self.as_ref().rayleigh_share()
+    }
+    fn frequency_model(&self) -> &'static str {
+        self.as_ref().frequency_model()
+    }
+    fn buckling_load(&self) -> Option<Force> {
+        self.as_ref().buckling_load()
+    }
+}
