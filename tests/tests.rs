@@ -5,9 +5,9 @@ mod calib;
 mod chain;
 mod common;
 mod gauge;
+mod layout;
 #[cfg(feature = "plot")]
 mod plot;
-mod layout;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;
