@@ -103,3 +103,14 @@ pub mod script;
 
 #[cfg(feature = "cli")]
 pub mod cli;
+
+// Jupyter kernel (area: kernel).
+#[cfg(feature = "kernel")]
+mod kernel;
+#[cfg(feature = "kernel")]
+pub use kernel::{
+    Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
+    KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
+    run_kernel_with,
+    uninstall_kernelspec,
+};
