@@ -18,6 +18,12 @@ pub(crate) const SIGNIFICANT: i32 = 6;
 /// A number with [`SIGNIFICANT`] figures, trailing zeros trimmed; scientific notation outside
 /// 1e-4 … 1e9.
 pub(crate) fn number(v: f64) -> String {
+    number_sig(v, SIGNIFICANT)
+}
+
+/// [`number`] with `sig` significant figures (1 … 17).
+pub(crate) fn number_sig(v: f64, sig: i32) -> String {
+    let sig = sig.clamp(1, 17);
     if v == 0.0 {
         return "0".into();
     }
@@ -26,14 +32,14 @@ pub(crate) fn number(v: f64) -> String {
     }
     let mag = v.abs().log10().floor() as i32;
     if !(-4..9).contains(&mag) {
-        let s = format!("{:.*e}", (SIGNIFICANT - 1) as usize, v);
+        let s = format!("{:.*e}", (sig - 1) as usize, v);
         // `{:e}` writes `1.23400e-5`: trim the mantissa's trailing zeros.
         return match s.split_once('e') {
             Some((m, e)) => format!("{}e{e}", trim(m)),
             None => s,
         };
     }
-    let decimals = (SIGNIFICANT - 1 - mag).max(0) as usize;
+    let decimals = (sig - 1 - mag).max(0) as usize;
     let s = trim(&format!("{v:.decimals$}"));
     if s == "-0" { "0".into() } else { s }
 }
@@ -278,12 +284,19 @@ fn compound(dim: Dimension) -> Option<String> {
     })
 }
 
-/// `value unit`, or the bare number for an empty unit.
-pub(crate) fn join(value: f64, unit: &str) -> String {
+/// `value unit`, or the bare number for an empty unit (the tests' shorthand).
+#[cfg(test)]
+fn join(value: f64, unit: &str) -> String {
+    join_sig(value, unit, SIGNIFICANT)
+}
+
+/// `value unit` with `sig` significant figures, or the bare number for an empty unit.
+pub(crate) fn join_sig(value: f64, unit: &str, sig: i32) -> String {
+    let n = number_sig(value, sig);
     if unit.is_empty() {
-        number(value)
+        n
     } else {
-        format!("{} {unit}", number(value))
+        format!("{n} {unit}")
     }
 }
 
@@ -302,6 +315,9 @@ mod tests {
         assert_eq!(number(2.0e12), "2e12");
         assert_eq!(number(-0.0), "0");
         assert_eq!(number(-1e-7 / 3.0), "-3.33333e-8");
+        assert_eq!(number_sig(2.0 / 3.0, 3), "0.667");
+        assert_eq!(number_sig(123456.0, 2), "123456");
+        assert_eq!(number_sig(1.5e-6, 1), "2e-6");
     }
 
     #[test]
