@@ -190,6 +190,28 @@ mod tests {
     use super::*;
 
     #[test]
+    fn gauss_rule_matches_numpy() {
+        // numpy 2.4.6, numpy.polynomial.legendre.leggauss(5), printed as float().
+        let x = [
+            -0.906179845938664,
+            -0.5384693101056831,
+            0.0,
+            0.5384693101056831,
+            0.906179845938664,
+        ];
+        let w = [
+            0.23692688505618928,
+            0.4786286704993663,
+            0.5688888888888887,
+            0.4786286704993663,
+            0.23692688505618928,
+        ];
+        for (k, (node, weight)) in GAUSS5.iter().enumerate() {
+            assert!((node - x[k]).abs() < 1e-14 && (weight - w[k]).abs() < 1e-14);
+        }
+    }
+
+    #[test]
     fn gauss_rule_integrates_polynomials_exactly() {
         let w: f64 = GAUSS5.iter().map(|(_, w)| w).sum();
         assert!((w - 2.0).abs() < 1e-14);
