@@ -83,5 +83,9 @@ pub use rosette::{
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
+// The embedded worked example behind `gaugebook demo`.
+mod demo;
+pub use demo::{DesignReport, ReportSection, bridge_design_demo};
+
 #[cfg(feature = "cli")]
 pub mod cli;
