@@ -591,3 +591,28 @@ mod leads_and_shunts {
         );
     }
 }
+
+#[test]
+fn offset_trim_from_the_nominal_model_cancels_a_real_offset_to_first_order() {
+    // Common practice: a zero offset r₀ is trimmed from the nominal equal-arm model; the real
+    // bridge (imbalance in R3, unknown to the model) then reads zero up to terms in r₀².
+    let r = ohms(350.0);
+    let real = WheatstoneBridge::equal_arms(r)
+        .unwrap()
+        .with_arm(ArmId::R3, Arm::gauge(r, 0.002).unwrap());
+    let offset = real.output_ratio();
+    let nominal = WheatstoneBridge::equal_arms(r).unwrap();
+    let t = nominal
+        .trim_for_offset(ArmId::R2, TrimKind::Series, offset)
+        .unwrap();
+    let trimmed = real.with_arm(ArmId::R2, real.arm(ArmId::R2).with_trim(t));
+    let residual = trimmed.output_ratio().value();
+    assert!(
+        residual.abs() < 2.0 * offset.value().powi(2) + 1e-18,
+        "residual {residual}"
+    );
+    // Exact when the imbalance is in the model.
+    let t = real.balance_trim(ArmId::R2, TrimKind::Series).unwrap();
+    let exact = real.with_arm(ArmId::R2, real.arm(ArmId::R2).with_trim(t));
+    assert!(exact.output_ratio().value().abs() < 1e-16);
+}

@@ -366,3 +366,112 @@ mod synthetic {
         assert!(e.to_string().contains("capacity 5 N"), "{e}");
     }
 }
+
+mod properties {
+    //! Property tests: exact inverses round-trip (closed-form identity), and synthetic cells
+    //! return the nonlinearity and hysteresis they were built with.
+    use gaugebook::{
+        CalibrationRun, Characterisation, CharacteriseOptions, Direction, Fit, FitModel, LoadKind,
+    };
+    use proptest::prelude::*;
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(64))]
+
+        #[test]
+        fn cubic_inverse_round_trips(
+            b1 in 0.5f64..5.0, b2 in -0.05f64..0.05, b3 in -0.01f64..0.01, x in 0.0f64..1000.0,
+            scale in prop::sample::select(vec![1e-3, 1.0, 1e3, 1e6]),
+        ) {
+            let f = |v: f64| { let t = v / 1000.0; b1 * t + b2 * t * t + b3 * t * t * t };
+            let xs: Vec<f64> = (0..=10).map(|i| i as f64 * 100.0 * scale).collect();
+            let ys: Vec<f64> = xs.iter().map(|&v| f(v / scale)).collect();
+            let fit = Fit::new(&xs, &ys, FitModel::Polynomial(3)).unwrap();
+            let back = fit.inverse(f(x)).unwrap();
+            prop_assert!((back - x * scale).abs() <= 1e-8 * 1000.0 * scale, "{} vs {}", back, x * scale);
+        }
+
+        #[test]
+        fn synthetic_cell_returns_its_figures(h in 0.0f64..0.01, eta in 0.0f64..0.005) {
+            let cap = 5000.0;
+            let ro = 2.0;
+            let asc = |x: f64| ro * x / cap + 4.0 * h * (x / cap) * (1.0 - x / cap);
+            let desc = |x: f64| asc(x) + eta * (std::f64::consts::PI * x / cap).sin();
+            let up: Vec<f64> = (0..=10).map(|i| i as f64 * 500.0).collect();
+            let down: Vec<f64> = up.iter().rev().copied().collect();
+            let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+            run.push_series(&up, &up.iter().map(|&x| asc(x)).collect::<Vec<_>>(), Direction::Ascending, 0.0).unwrap();
+            run.push_series(&down, &down.iter().map(|&x| desc(x)).collect::<Vec<_>>(), Direction::Descending, 0.0).unwrap();
+            let c = Characterisation::from_run(&run, CharacteriseOptions::new(cap)).unwrap();
+            prop_assert!((c.nonlinearity_terminal.percent_ro - h / ro * 100.0).abs() < 1e-9);
+            prop_assert!((c.nonlinearity_minimax.percent_ro - h / ro * 50.0).abs() < 1e-9);
+            prop_assert!((c.hysteresis.percent_ro - eta / ro * 100.0).abs() < 1e-9);
+        }
+    }
+}
+
+mod bad_input {
+    //! Bad input gives clear errors, never a panic.
+    use gaugebook::units::Force;
+    use gaugebook::{
+        CalibrationRun, Direction, Fit, FitModel, LoadKind, OutputRatio, PhysicsError,
+    };
+    use uom::si::force::newton;
+
+    #[test]
+    fn too_few_points_for_the_degree() {
+        let e = Fit::new(&[0.0, 1.0, 2.0], &[0.0, 1.0, 4.0], FitModel::Polynomial(2)).unwrap_err();
+        assert_eq!(
+            e.to_string(),
+            "not enough data for a fit with 3 parameters: needs at least 4, found 3"
+        );
+    }
+
+    #[test]
+    fn non_monotonic_loads() {
+        let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+        let e = run
+            .push_series(
+                &[0.0, 10.0, 10.0],
+                &[0.0, 1.0, 1.0],
+                Direction::Ascending,
+                0.0,
+            )
+            .unwrap_err();
+        assert_eq!(
+            e.to_string(),
+            "invalid load sequence at point 2: expected strictly increasing loads in an ascending \
+             series, found 10 N after 10 N"
+        );
+    }
+
+    #[test]
+    fn mismatched_lengths() {
+        let e = Fit::new(&[0.0, 1.0, 2.0], &[0.0, 1.0], FitModel::Linear).unwrap_err();
+        assert!(matches!(e, PhysicsError::Mismatch { .. }), "{e}");
+    }
+
+    #[test]
+    fn mismatched_units() {
+        let mut run = CalibrationRun::new(LoadKind::Torque, "V/V");
+        let f = [Force::new::<newton>(0.0), Force::new::<newton>(1.0)];
+        let o = [OutputRatio::new(0.0), OutputRatio::new(1e-3)];
+        let e = run
+            .push_force_series(&f, &o, Direction::Ascending, 0.0)
+            .unwrap_err();
+        assert_eq!(
+            e.to_string(),
+            "calibration run units do not match: run of N·m in V/V versus series of N in V/V"
+        );
+    }
+
+    #[test]
+    fn inverse_outside_the_curve() {
+        let f = Fit::new(&[0.0, 1.0, 2.0], &[0.0, 1.0, 2.0], FitModel::Linear).unwrap();
+        assert!(matches!(
+            f.inverse(10.0),
+            Err(PhysicsError::NoSolution { .. })
+        ));
+        assert!(f.inverse(f64::NAN).is_err());
+    }
+}

@@ -682,3 +682,72 @@ fn material_table_values_are_plausible_and_sourced() {
     let st = material("4340").unwrap().density();
     assert!(ti < st);
 }
+
+#[cfg(feature = "script")]
+mod design_cell {
+    //! The stdlib module `design_cell.rhai`, run in a session: its sizing must reproduce the
+    //! target through the Rust API at the dimension it returns.
+
+    use std::sync::Arc;
+
+    use gaugebook::script::{CaptureSink, Session, SessionOptions};
+    use gaugebook::units::{ElectricalResistance, Length};
+    use gaugebook::{Arrangement, Gauge, Layout, Parallelogram, material};
+    use uom::si::electrical_resistance::ohm;
+    use uom::si::length::millimeter;
+
+    use crate::common::assert_close;
+
+    fn run(code: &str) -> Result<String, String> {
+        let mut s = Session::new(SessionOptions::default()).map_err(|e| e.to_string())?;
+        s.set_output(Arc::new(CaptureSink::default()));
+        match s.eval_cell(code, "design_cell test") {
+            Ok(out) => Ok(out
+                .value
+                .map(|b| b.get("text/plain").unwrap_or("").to_string())
+                .unwrap_or_default()),
+            Err(e) => Err(e.render()),
+        }
+    }
+
+    #[test]
+    fn sizes_a_parallelogram_for_the_target_output() {
+        let t = run(r#"
+            import "design_cell" as dc;
+            let d = dc::size(150.0 * N, 2.0 * mV_per_V, #{ material: "2024-T351" });
+            assert_eq(d.kind, "parallelogram");
+            assert_close(d.rated_output, 2.0 * mV_per_V, 1e-6);
+            d.dimension.value("mm")
+        "#)
+        .unwrap();
+        let h: f64 = t.trim().parse().unwrap();
+        // The same design through the Rust API (the stdlib's fixed proportions).
+        let mm = Length::new::<millimeter>;
+        let p = Parallelogram::new(
+            material("2024-T351").unwrap(),
+            mm(40.0),
+            mm(20.0),
+            mm(h),
+            mm(30.0),
+            mm(6.0),
+        )
+        .unwrap();
+        let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0).unwrap();
+        let l = Layout::standard(p, &g, Arrangement::FullBending, 150.0).unwrap();
+        assert_close(l.report(0).unwrap().rated_output.mv_per_v(), 2.0, 1e-6, 0.0);
+    }
+
+    #[test]
+    fn says_so_when_no_design_meets_the_target() {
+        // 5 mV/V from an aluminium column needs ~3.8e-3 strain: it yields at 150 % overload.
+        let e = run(r#"
+            import "design_cell" as dc;
+            dc::size(100.0 * kN, 5.0 * mV_per_V, #{ material: "2024-T351" })
+        "#)
+        .unwrap_err();
+        assert!(
+            e.contains("yields at the safe overload") || e.contains("no column"),
+            "{e}"
+        );
+    }
+}

@@ -8,7 +8,7 @@ use gaugebook::{
     R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74, evaluate_r60,
 };
 
-/// OIML R 60:2021 Table 2 (from memory): n_LC ranges per class.
+/// OIML R 60-1:2021 5.1.2 (values from memory): n_LC ranges per class.
 #[test]
 fn r60_interval_ranges() {
     assert_eq!(OimlClass::A.interval_range(), (50_000, None));
@@ -17,8 +17,8 @@ fn r60_interval_ranges() {
     assert_eq!(OimlClass::D.interval_range(), (100, Some(1_000)));
 }
 
-/// OIML R 60:2021 Table 5 (from memory): MPE = p_LC × 0.5 / 1.0 / 1.5 v with band edges per
-/// class; p_LC = 0.7.
+/// OIML R 60-1:2021 5.3.2 and Table 4 (band values from memory): MPE = p_LC × 0.5 / 1.0 /
+/// 1.5 v with band edges per class; p_LC = 0.7.
 #[test]
 fn r60_mpe_bands() {
     let cases = [
@@ -125,6 +125,35 @@ fn r60_creep_dr_and_temperature() {
     };
     let r = evaluate_r60(&cell, &run, &bad).unwrap();
     assert_eq!(r.failures()[0].name, "creep between 20 and 30 min");
+}
+
+/// R 60-3:2021 2.1.2.3: without a test load at 75 % of the range the reference indication is
+/// interpolated between the adjacent loads; a straight run then has zero error everywhere.
+#[test]
+fn r60_reference_line_interpolated() {
+    let cell = R60LoadCell::new(OimlClass::C, 3000, EMAX, 0.0, 1.0).unwrap();
+    let loads: Vec<f64> = (0..=5).map(|i| i as f64 * 2000.0).collect();
+    // A bow: the line through 0 and 7500 N (between 6000 and 8000) sets the errors.
+    let y: Vec<f64> = loads
+        .iter()
+        .map(|l| 2e-7 * l + 1e-13 * l * (EMAX - l))
+        .collect();
+    let mut run = CalibrationRun::force_in_output_ratio();
+    run.push_series(&loads, &y, Direction::Ascending, 0.0)
+        .unwrap();
+    let v = evaluate_r60(&cell, &run, &R60Extras::default()).unwrap();
+    let y75 = 2e-7 * 6000.0
+        + 1e-13 * 6000.0 * 4000.0
+        + (2e-7 * 8000.0 + 1e-13 * 8000.0 * 2000.0 - 2e-7 * 6000.0 - 1e-13 * 6000.0 * 4000.0)
+            * 0.75;
+    let slope = y75 / 7500.0;
+    let at = |l: f64| (2e-7 * l + 1e-13 * l * (EMAX - l) - slope * l) / slope;
+    let e = v
+        .checks
+        .iter()
+        .find(|c| c.name == "error at 4000 N (ascending, series 0)")
+        .unwrap();
+    assert_close(e.value, at(4000.0), 1e-9, 1e-12);
 }
 
 #[test]
@@ -250,4 +279,40 @@ fn iso376_bad_input() {
         vec![1.0; 2],
     );
     assert!(classify_iso376(&d).is_err());
+}
+
+/// OIML R 60-1:2021 3.5: Z = (E_max − E_min)/(2 DR); a declared Z = 5000 on 10 kN allows
+/// DR ≤ 1 N, tighter here than 0.5 v = 1.67 N.
+#[test]
+fn r60_declared_z() {
+    let (mut cell, run) = c3_run(&[0.0; 11]);
+    cell.z = Some(5000.0);
+    let extras = R60Extras {
+        dead_load_return: Some(1.2),
+        ..R60Extras::default()
+    };
+    let v = evaluate_r60(&cell, &run, &extras).unwrap();
+    let f = v.failures();
+    assert_eq!(f.len(), 1, "{v}");
+    assert_eq!(f[0].name, "DR against the declared Z");
+    assert_close(f[0].limit, 1.0, 1e-12, 0.0);
+}
+
+/// Differential check of the E74 quadratic evaluation against numpy 2.4.6:
+/// `p = np.polyfit(f, y, 2); r = y - np.polyval(p, f); sl = np.polyval(np.polyder(p), f);
+/// s = sqrt(sum((r/sl)**2)/(n - 3))` = 2.5738233940872988 N for the data below.
+#[test]
+fn e74_quadratic_against_numpy() {
+    let f: Vec<f64> = (1..=10).map(|i| i as f64 * 10_000.0).collect();
+    let e = [3.0, -2.0, 1.0, -4.0, 2.0, 0.0, -1.0, 3.0, -2.0, 0.0];
+    let y: Vec<f64> = f
+        .iter()
+        .zip(&e)
+        .map(|(f, e)| 2e-7 * (f + e) + 1e-15 * f * f)
+        .collect();
+    let mut run = CalibrationRun::force_in_output_ratio();
+    run.push_series(&f, &y, Direction::Ascending, 0.0).unwrap();
+    let r = evaluate_e74(&run, 2, 0.01, &[]).unwrap();
+    assert_close(r.s, 2.5738233940872988, 1e-7, 0.0);
+    assert_close(r.llf, 6.177176145809517, 1e-7, 0.0);
 }

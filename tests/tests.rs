@@ -5,9 +5,17 @@ mod calib;
 mod chain;
 mod common;
 mod gauge;
+#[cfg(feature = "kernel")]
+mod kernel;
+mod layout;
+#[cfg(feature = "plot")]
+mod plot;
 mod rosette;
+#[cfg(feature = "script")]
+mod script;
 mod signal;
 mod spring;
 mod standards;
 mod uncertainty;
 mod units;
+mod weighing;

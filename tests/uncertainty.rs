@@ -401,3 +401,45 @@ fn bad_inputs_are_errors() {
     let short = MonteCarlo::new(10, 1).run(&b, |_c: &[Vec<f64>]| vec![0.0; 3]);
     assert!(short.is_err());
 }
+
+/// JCGM 100:2008 H.3, calibration of a thermometer: b(t) = y₁ + y₂ (t − t₀), t₀ = 20 °C, fitted
+/// to 11 readings (Table H.6, from memory). The GUM gives y₁ = −0.1712 °C, y₂ = 0.00218,
+/// s(y₁) = 0.0029 °C, s(y₂) = 0.00067, r(y₁, y₂) = −0.930, s = 0.0035 °C, and for t = 30 °C
+/// b = −0.1494 °C with u = 0.0041 °C (H.3.4, from memory). Differential reference:
+/// statsmodels 0.15.0 `OLS(b, add_constant(t - 20)).fit()`: params [−0.17120379, 0.0021827],
+/// bse [0.0028776, 0.00066794], √scale 0.0034975639635052925, r −0.930429603093446,
+/// b(30) −0.14937681273247716, u 0.004138595752854957.
+#[test]
+fn gum_h3_thermometer() {
+    use gaugebook::{Fit, FitModel};
+    let t = [
+        21.521, 22.012, 22.512, 23.003, 23.507, 23.999, 24.513, 25.002, 25.503, 26.010, 26.511,
+    ];
+    let b = [
+        -0.171, -0.169, -0.166, -0.159, -0.164, -0.165, -0.156, -0.157, -0.159, -0.161, -0.160,
+    ];
+    let x: Vec<f64> = t.iter().map(|v| v - 20.0).collect();
+    let f = Fit::new(&x, &b, FitModel::Linear).unwrap();
+    let (y1, y2) = (f.coefficients()[0], f.coefficients()[1]);
+    let (u1, u2) = (f.std_errors()[0], f.std_errors()[1]);
+    let r = f.covariance()[0][1] / (u1 * u2);
+    assert_close(y1, -0.17120379, 0.0, 5e-9);
+    assert_close(y2, 0.0021827, 0.0, 5e-8);
+    assert_close(u1, 0.0028776, 0.0, 5e-8);
+    assert_close(u2, 0.00066794, 0.0, 5e-9);
+    assert_close(f.residual_sd(), 0.0034975639635052925, 1e-10, 0.0);
+    assert_close(r, -0.930429603093446, 1e-9, 0.0);
+    // The GUM's rounded figures.
+    assert_eq!((y1 * 1e4).round() / 1e4, -0.1712);
+    assert_eq!((r * 1e3).round() / 1e3, -0.930);
+    // Correction at 30 °C through a budget with correlated inputs (JCGM 100 eq. 16 / H.3.4).
+    let mut budget = Budget::new(vec![
+        Input::normal("y1", y1, u1, f64::INFINITY).unwrap(),
+        Input::normal("y2", y2, u2, f64::INFINITY).unwrap(),
+    ]);
+    budget.correlate(0, 1, r).unwrap();
+    let g = budget.evaluate(|p| p[0] + p[1] * 10.0).unwrap();
+    assert_close(g.value, -0.14937681273247716, 1e-9, 0.0);
+    assert_close(g.combined, 0.004138595752854957, 1e-8, 0.0);
+    assert_eq!((g.combined * 1e4).round() / 1e4, 0.0041);
+}

@@ -243,8 +243,6 @@ fn against_pint_0_25_3() {
         ("77 degF", "degC", 25.0),
         // Q(-40, "degC").to("degF") → -40.000000000000064
         ("-40 degC", "degF", -40.0),
-        // Q(300, "K").to("degC") → 26.850000000000023
-        ("300 K", "degC", 26.85),
         // Q(25, "degC").to("K") → 298.15
         ("25 degC", "K", 298.15),
         // Q(98.6, "degF").to("K") → 310.15000000000003
@@ -277,6 +275,23 @@ fn temperature_arithmetic_where_pint_agrees() {
         .unwrap()
         .try_add(&Quantity::parse("5 degC").unwrap());
     assert!(matches!(e, Err(UnitError::TemperatureReadings { .. })));
+    // pint 0.25.3: Q(5, "delta_degC").to("degC") raises DimensionalityError; so do we.
+    let e = Quantity::parse("5 delta_degC")
+        .unwrap()
+        .to("degC")
+        .unwrap_err();
+    assert!(matches!(e, UnitError::DifferenceAsReading { .. }), "{e}");
+    // Deliberate difference: pint 0.25.3 converts Q(300, "K").to("degC") → 26.850000000000023,
+    // because its kelvin is absolute; Gaugebook's K is the unit of differences and refuses it.
+    let e = Quantity::parse("300 K")
+        .unwrap()
+        .value_in("degC")
+        .unwrap_err();
+    assert_eq!(
+        e.to_string(),
+        "cannot express the temperature difference 300 K in °C: add it to a reading \
+         (20 °C + 300 K) instead"
+    );
     // Deliberate difference: pint 0.25.3 calls Q(25, "degC") + Q(5, "K") ambiguous and refuses
     // it; Gaugebook reads K as the unit of differences (DESIGN.md §3), so it is 30 °C.
     let t = Quantity::parse("25 degC")
@@ -517,7 +532,12 @@ proptest! {
         let (a, b) = (units[i], units[j]);
         let q = Quantity::new(v, a).unwrap();
         // A strain given in a plain-ratio unit (%, ppm) is plain: express strains from ue.
-        let q = if family == 4 { Quantity::new(v, "ue").unwrap().to(a).unwrap() } else { q };
+        // A difference never becomes a reading: express temperatures from a reading.
+        let q = match family {
+            3 => Quantity::new(v, "degC").unwrap().to(a).unwrap(),
+            4 => Quantity::new(v, "ue").unwrap().to(a).unwrap(),
+            _ => q,
+        };
         let there = q.to(b).unwrap();
         let back = there.value_in(a).unwrap();
         let orig = q.value_in(a).unwrap();

@@ -36,16 +36,64 @@ impl WheatstoneBridge {
     /// # Ok::<(), gaugebook::PhysicsError>(())
     /// ```
     pub fn balance_trim(&self, arm: ArmId, kind: TrimKind) -> Result<Trim, PhysicsError> {
-        let needed = self
-            .arm_resistance_for(arm, OutputRatio::ZERO)?
-            .get::<ohm>();
+        self.trim_for_output(arm, kind, OutputRatio::ZERO)
+    }
+
+    /// The trim of `kind` in arm `arm` that cancels a measured zero offset `offset` of a real
+    /// bridge that this bridge models (for example nominal equal arms): the trim that makes the
+    /// model read `self.output_ratio() − offset`. To first order in the offset the real bridge
+    /// then reads zero, wherever its imbalance sits (common practice; exact when the imbalance
+    /// is in the model).
+    ///
+    /// ```
+    /// use gaugebook::{ArmId, OutputRatio, TrimKind, WheatstoneBridge};
+    /// use gaugebook::units::ElectricalResistance;
+    /// use uom::si::electrical_resistance::ohm;
+    /// let nominal = WheatstoneBridge::equal_arms(ElectricalResistance::new::<ohm>(350.0))?;
+    /// // +0.5 mV/V of zero offset: raise R2 or R4 (or lower R1 or R3).
+    /// let t = nominal.trim_for_offset(ArmId::R2, TrimKind::Series, OutputRatio::from_mv_per_v(0.5))?;
+    /// // About 4·R·r₀ = 0.7 Ω.
+    /// assert!((t.resistance().get::<ohm>() - 0.7).abs() < 0.01);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn trim_for_offset(
+        &self,
+        arm: ArmId,
+        kind: TrimKind,
+        offset: OutputRatio,
+    ) -> Result<Trim, PhysicsError> {
+        crate::check_finite("zero offset", offset.value(), "V/V")?;
+        self.trim_for_output(arm, kind, self.output_ratio() - offset)
+    }
+
+    /// The trim of `kind` in arm `arm` that makes the bridge read `target` (computed for the
+    /// arm's element without any trim it already has; the result replaces that trim).
+    ///
+    /// ```
+    /// use gaugebook::{ArmId, OutputRatio, TrimKind, WheatstoneBridge};
+    /// use gaugebook::units::ElectricalResistance;
+    /// use uom::si::electrical_resistance::ohm;
+    /// let b = WheatstoneBridge::equal_arms(ElectricalResistance::new::<ohm>(350.0))?;
+    /// let target = OutputRatio::from_mv_per_v(-1.0);
+    /// let t = b.trim_for_output(ArmId::R1, TrimKind::Parallel, target)?;
+    /// let arm = b.arm(ArmId::R1).with_trim(t);
+    /// assert!((b.with_arm(ArmId::R1, arm).output_ratio().mv_per_v() + 1.0).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn trim_for_output(
+        &self,
+        arm: ArmId,
+        kind: TrimKind,
+        target: OutputRatio,
+    ) -> Result<Trim, PhysicsError> {
+        let needed = self.arm_resistance_for(arm, target)?.get::<ohm>();
         let element = self.arm(arm).element_ohms();
         let what = format!("a {} trim in arm {arm}", kind_name(kind));
-        // Balanced to within rounding: any finite trim would unbalance it.
+        // At the target to within rounding: any finite trim would move it away.
         if (needed - element).abs() <= 1e-13 * element {
             return Err(PhysicsError::NoSolution {
                 what,
-                reason: "the bridge is already balanced".into(),
+                reason: format!("the untrimmed arm already gives {target}"),
             });
         }
         let value = match kind {

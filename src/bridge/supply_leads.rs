@@ -12,7 +12,7 @@
 use uom::si::electrical_resistance::ohm;
 use uom::si::temperature_interval::kelvin;
 
-use super::LeadWire;
+use super::{LeadWire, WheatstoneBridge};
 use crate::units::{ElectricalResistance, TemperatureInterval};
 use crate::{OutputRatio, PhysicsError, Strain, check_positive};
 
@@ -53,6 +53,25 @@ pub struct SupplyLeads {
 }
 
 impl SupplyLeads {
+    /// The supply leads of `bridge`, taking its input resistance.
+    ///
+    /// ```
+    /// use gaugebook::{LeadWire, SupplyLeads, SupplyWiring, WheatstoneBridge};
+    /// use gaugebook::units::ElectricalResistance;
+    /// use uom::si::electrical_resistance::ohm;
+    /// let b = WheatstoneBridge::equal_arms(ElectricalResistance::new::<ohm>(700.0))?;
+    /// let s = SupplyLeads::for_bridge(&b, SupplyWiring::FourWire, LeadWire::copper(ElectricalResistance::new::<ohm>(1.0))?)?;
+    /// assert!((s.desensitization() - 2.0 / 702.0).abs() < 1e-15);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn for_bridge(
+        bridge: &WheatstoneBridge,
+        wiring: SupplyWiring,
+        lead: LeadWire,
+    ) -> Result<SupplyLeads, PhysicsError> {
+        SupplyLeads::new(bridge.input_resistance(), wiring, lead)
+    }
+
     /// A bridge of input resistance `bridge_resistance` (see
     /// [`WheatstoneBridge::input_resistance`](crate::WheatstoneBridge::input_resistance))
     /// wired by `wiring` with excitation leads like `lead`.

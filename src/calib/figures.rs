@@ -45,6 +45,12 @@ pub struct Figure {
 
 impl Figure {
     /// From a deviation in indication units, the rated output and the capacity.
+    ///
+    /// ```
+    /// use gaugebook::Figure;
+    /// let f = Figure::from_indication(-0.001, 2.0, 500.0);
+    /// assert_eq!((f.percent_ro, f.load), (-0.05, -0.25));
+    /// ```
     pub fn from_indication(indication: f64, rated_output: f64, capacity: f64) -> Figure {
         Figure {
             indication,
@@ -73,6 +79,10 @@ pub enum ReferenceLine {
 
 impl ReferenceLine {
     /// The name used in tables.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::ReferenceLine::Terminal.name(), "terminal");
+    /// ```
     pub fn name(self) -> &'static str {
         match self {
             ReferenceLine::Terminal => "terminal",
@@ -100,6 +110,11 @@ pub struct Line {
 
 impl Line {
     /// The line's value at x.
+    ///
+    /// ```
+    /// let l = gaugebook::Line { intercept: 1.0, slope: 2.0 };
+    /// assert_eq!(l.eval(3.0), 7.0);
+    /// ```
     pub fn eval(&self, x: f64) -> f64 {
         self.intercept + self.slope * x
     }
@@ -199,6 +214,11 @@ impl Line {
     }
 
     /// The largest absolute deviation max|yᵢ − line(xᵢ)|.
+    ///
+    /// ```
+    /// let l = gaugebook::Line { intercept: 0.0, slope: 1.0 };
+    /// assert_eq!(l.max_deviation(&[0.0, 1.0, 2.0], &[0.0, 1.5, 2.0]), 0.5);
+    /// ```
     pub fn max_deviation(&self, x: &[f64], y: &[f64]) -> f64 {
         x.iter()
             .zip(y)
@@ -242,6 +262,11 @@ pub struct CharacteriseOptions {
 
 impl CharacteriseOptions {
     /// Options with the default level tolerance.
+    ///
+    /// ```
+    /// let o = gaugebook::CharacteriseOptions::new(2000.0);
+    /// assert_eq!(o.level_tolerance, 2000.0 * 1e-6);
+    /// ```
     pub fn new(capacity: f64) -> CharacteriseOptions {
         CharacteriseOptions {
             capacity,
@@ -439,6 +464,12 @@ pub struct CreepHold {
 impl CreepHold {
     /// Times in seconds from the moment the load was applied (or removed), strictly increasing,
     /// and the indications at those times.
+    ///
+    /// ```
+    /// use gaugebook::CreepHold;
+    /// assert!(CreepHold::new(&[0.0, 0.0], &[1.0, 1.0]).is_err()); // times must increase
+    /// assert!(CreepHold::new(&[0.0], &[1.0]).is_err()); // too few readings
+    /// ```
     pub fn new(times_s: &[f64], indications: &[f64]) -> Result<CreepHold, PhysicsError> {
         if times_s.len() != indications.len() {
             return Err(PhysicsError::Mismatch {
@@ -470,6 +501,12 @@ impl CreepHold {
     }
 
     /// The indication at time t (s), linearly interpolated; t must lie within the hold.
+    ///
+    /// ```
+    /// let h = gaugebook::CreepHold::new(&[0.0, 100.0], &[1.0, 2.0])?;
+    /// assert_eq!(h.at(25.0)?, 1.25);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn at(&self, t: f64) -> Result<f64, PhysicsError> {
         let (t0, t1) = (self.times_s[0], self.times_s[self.times_s.len() - 1]);
         if !(t >= t0 && t <= t1) {
@@ -489,6 +526,12 @@ impl CreepHold {
     }
 
     /// Indication at `to_s` minus indication at `from_s`.
+    ///
+    /// ```
+    /// let h = gaugebook::CreepHold::new(&[0.0, 1200.0, 1800.0], &[2.0, 2.0004, 2.0005])?;
+    /// assert!((h.change(1200.0, 1800.0)? - 0.0001).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn change(&self, from_s: f64, to_s: f64) -> Result<f64, PhysicsError> {
         Ok(self.at(to_s)? - self.at(from_s)?)
     }

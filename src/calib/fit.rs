@@ -34,6 +34,10 @@ pub enum FitModel {
 
 impl FitModel {
     /// Highest power of x.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::FitModel::ThroughZero.degree(), 1);
+    /// ```
     pub fn degree(self) -> usize {
         match self {
             FitModel::ThroughZero | FitModel::Linear => 1,
@@ -42,6 +46,10 @@ impl FitModel {
     }
 
     /// Number of fitted parameters p.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::FitModel::Linear.parameters(), 2);
+    /// ```
     pub fn parameters(self) -> usize {
         match self {
             FitModel::ThroughZero => 1,
@@ -222,46 +230,112 @@ impl Fit {
     }
 
     /// The model fitted.
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// assert_eq!(f.model(), FitModel::Linear);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn model(&self) -> FitModel {
         self.model
     }
 
     /// Coefficients of 1, x, x², … (index = power).
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// assert_eq!(f.coefficients().len(), 2);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn coefficients(&self) -> &[f64] {
         &self.coefficients
     }
 
     /// Standard errors of the coefficients (index = power), from s²(AᵀA)⁻¹.
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// assert!(f.std_errors().iter().all(|&s| s > 0.0));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn std_errors(&self) -> &[f64] {
         &self.std_errors
     }
 
     /// Covariance matrix of the coefficients (index = power).
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// let c = f.covariance();
+    /// assert!((c[1][1].sqrt() - f.std_errors()[1]).abs() < 1e-15);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn covariance(&self) -> &[Vec<f64>] {
         &self.covariance
     }
 
     /// Residuals y − ŷ in the order of the input points.
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// // Least squares with an intercept: the residuals sum to zero.
+    /// assert!(f.residuals().iter().sum::<f64>().abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn residuals(&self) -> &[f64] {
         &self.residuals
     }
 
     /// Residual standard deviation s = √(Σe²/(n − p)).
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// let sse: f64 = f.residuals().iter().map(|e| e * e).sum();
+    /// assert!((f.residual_sd() - (sse / 2.0).sqrt()).abs() < 1e-15);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn residual_sd(&self) -> f64 {
         self.residual_sd
     }
 
     /// Degrees of freedom of the residual, n − p.
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// assert_eq!(f.dof(), 2); // n − p = 4 − 2
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn dof(&self) -> usize {
         self.dof
     }
 
     /// Coefficient of determination (uncentred through zero, as NIST StRD certifies it).
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// assert!(f.r_squared() > 0.99 && f.r_squared() <= 1.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn r_squared(&self) -> f64 {
         self.r_squared
     }
 
     /// The range of x the curve was fitted over.
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// assert_eq!(f.x_range(), (0.0, 3.0));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn x_range(&self) -> (f64, f64) {
         (self.x_min, self.x_max)
     }

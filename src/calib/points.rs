@@ -28,6 +28,10 @@ pub enum LoadKind {
 
 impl LoadKind {
     /// The SI unit the loads are stored in.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::LoadKind::Force.si_unit(), "N");
+    /// ```
     pub fn si_unit(self) -> &'static str {
         match self {
             LoadKind::Force => "N",
@@ -93,11 +97,27 @@ pub struct Series {
 
 impl Series {
     /// The applied loads, in order.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.series()[0].loads(), vec![0.0, 100.0]);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn loads(&self) -> Vec<f64> {
         self.points.iter().map(|p| p.load).collect()
     }
 
     /// The indications, in order.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.series()[0].indications(), vec![0.01, 2.0]);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn indications(&self) -> Vec<f64> {
         self.points.iter().map(|p| p.indication).collect()
     }
@@ -142,6 +162,12 @@ pub struct CalibrationRun {
 
 impl CalibrationRun {
     /// An empty run with loads of `load_kind` and indications labelled `indication_unit`.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, LoadKind};
+    /// let run = CalibrationRun::new(LoadKind::Torque, "counts");
+    /// assert!(run.points().is_empty());
+    /// ```
     pub fn new(load_kind: LoadKind, indication_unit: &str) -> CalibrationRun {
         CalibrationRun {
             load_kind,
@@ -151,26 +177,63 @@ impl CalibrationRun {
     }
 
     /// An empty run of a load cell: force against bridge output in V/V.
+    ///
+    /// ```
+    /// let run = gaugebook::CalibrationRun::force_in_output_ratio();
+    /// assert_eq!(run.load_kind(), gaugebook::LoadKind::Force);
+    /// ```
     pub fn force_in_output_ratio() -> CalibrationRun {
         CalibrationRun::new(LoadKind::Force, "V/V")
     }
 
     /// The load kind.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.load_kind(), LoadKind::Force);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn load_kind(&self) -> LoadKind {
         self.load_kind
     }
 
     /// The unit label of the indications.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.indication_unit(), "mV/V");
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn indication_unit(&self) -> &str {
         &self.indication_unit
     }
 
     /// The series in the order pushed.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.series().len(), 1);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn series(&self) -> &[Series] {
         &self.series
     }
 
     /// Every point of every series.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.01, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.points()[1].indication, 2.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn points(&self) -> Vec<CalibrationPoint> {
         self.series
             .iter()
@@ -250,10 +313,10 @@ impl CalibrationRun {
                 return Err(PhysicsError::invalid(
                     format!("load sequence at point {}", i + 1),
                     format!("{} {unit} after {} {unit}", w[1], w[0]),
-                    format!(
-                        "{want} loads in a {} series",
-                        want.split(' ').nth(1).unwrap_or("")
-                    ),
+                    match direction {
+                        Direction::Ascending => format!("{want} loads in an ascending series"),
+                        Direction::Descending => format!("{want} loads in a descending series"),
+                    },
                 ));
             }
         }
@@ -339,6 +402,95 @@ impl CalibrationRun {
             });
         }
         Ok(())
+    }
+
+    /// Builds a run from a test log's detected holds (see [`crate::find_holds`]): each hold's
+    /// samples, less `settle` at each end, give one point (mean load, mean indication); the
+    /// points are split into ascending and descending series where the load turns, the turning
+    /// point belonging to both. Consecutive holds at the same load (within `tol`) keep the first.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, HoldCriteria, LoadKind, find_holds};
+    /// // Load steps 0, 50, 100, 50, 0 N of 40 samples each, ramps of 10 between.
+    /// let levels = [0.0, 50.0, 100.0, 50.0, 0.0];
+    /// let mut load = vec![];
+    /// for (k, &l) in levels.iter().enumerate() {
+    ///     if k > 0 {
+    ///         let prev: f64 = levels[k - 1];
+    ///         load.extend((1..=10).map(|i| prev + (l - prev) * i as f64 / 11.0));
+    ///     }
+    ///     load.extend(std::iter::repeat(l).take(40));
+    /// }
+    /// let ind: Vec<f64> = load.iter().map(|l| 0.02 * l).collect();
+    /// let holds = find_holds(&load, &HoldCriteria { tolerance: 0.5, min_samples: 30, settle_samples: 0 })?;
+    /// let run = CalibrationRun::from_holds(LoadKind::Force, "mV/V", &load, &ind, &holds, 2, 1.0, 0.0)?;
+    /// assert_eq!(run.series().len(), 2);
+    /// assert_eq!(run.series_in(Direction::Descending)[0].loads(), vec![100.0, 50.0, 0.0]);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    #[allow(clippy::too_many_arguments)] // each argument is a distinct, named input of the log
+    pub fn from_holds(
+        load_kind: LoadKind,
+        indication_unit: &str,
+        load: &[f64],
+        indication: &[f64],
+        holds: &[crate::Hold],
+        settle: usize,
+        tol: f64,
+        rotation_deg: f64,
+    ) -> Result<CalibrationRun, PhysicsError> {
+        if load.len() != indication.len() {
+            return Err(PhysicsError::Mismatch {
+                what: "load and indication column lengths".into(),
+                left: format!("{} load samples", load.len()),
+                right: format!("{} indication samples", indication.len()),
+            });
+        }
+        let mut pts: Vec<(f64, f64)> = vec![];
+        for h in holds {
+            let (a, b) = (h.start + settle, h.end.saturating_sub(settle));
+            if b <= a || b > load.len() {
+                return Err(PhysicsError::invalid(
+                    "hold range",
+                    format!(
+                        "samples {} … {} less {settle} settling each end",
+                        h.start, h.end
+                    ),
+                    format!("a non-empty range within {} samples", load.len()),
+                ));
+            }
+            let n = (b - a) as f64;
+            let l = load[a..b].iter().sum::<f64>() / n;
+            let r = indication[a..b].iter().sum::<f64>() / n;
+            if pts.last().is_none_or(|&(pl, _)| (l - pl).abs() > tol) {
+                pts.push((l, r));
+            }
+        }
+        let mut run = CalibrationRun::new(load_kind, indication_unit);
+        let mut start = 0;
+        while start + 1 < pts.len() {
+            let rising = pts[start + 1].0 > pts[start].0;
+            let mut end = start + 1;
+            while end + 1 < pts.len() && (pts[end + 1].0 > pts[end].0) == rising {
+                end += 1;
+            }
+            let (l, r): (Vec<f64>, Vec<f64>) = pts[start..=end].iter().copied().unzip();
+            let dir = if rising {
+                Direction::Ascending
+            } else {
+                Direction::Descending
+            };
+            run.push_series(&l, &r, dir, rotation_deg)?;
+            start = end;
+        }
+        if run.series.is_empty() {
+            return Err(PhysicsError::NotEnoughData {
+                what: "calibration points from holds".into(),
+                needed: 2,
+                found: pts.len(),
+            });
+        }
+        Ok(run)
     }
 
     /// All loads and indications of the chosen direction(s) as two parallel vectors (for fits).

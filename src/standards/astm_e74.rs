@@ -85,6 +85,14 @@ impl E74Result {
 /// Fits a degree-`degree` curve to every point of the run and derives s, LLF and the ranges.
 /// `resolution` in force units; `other_components` are further standard uncertainties in force
 /// units combined with s in quadrature before the 2.4 factor (E74-18 practice, from memory).
+///
+/// ```
+/// use gaugebook::{CalibrationRun, Direction, LoadKind, evaluate_e74};
+/// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+/// run.push_series(&[1.0, 2.0, 3.0], &[1.0, 2.0, 3.0], Direction::Ascending, 0.0)?;
+/// assert!(evaluate_e74(&run, 2, 0.0, &[]).is_err()); // resolution must be above 0
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 pub fn evaluate_e74(
     run: &CalibrationRun,
     degree: usize,

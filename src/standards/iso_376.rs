@@ -43,6 +43,11 @@ pub enum Iso376Class {
 }
 
 /// The class limits of ISO 376:2011 Table 2 (from memory), in %.
+///
+/// ```
+/// let l = gaugebook::Iso376Class::Two.limits();
+/// assert_eq!((l.reproducibility, l.creep), (0.40, 0.20));
+/// ```
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Iso376Limits {
     /// Relative reproducibility error b.
@@ -63,6 +68,10 @@ pub struct Iso376Limits {
 
 impl Iso376Class {
     /// All classes, best first.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Iso376Class::ALL[0], gaugebook::Iso376Class::Zero0);
+    /// ```
     pub const ALL: [Iso376Class; 4] = [
         Iso376Class::Zero0,
         Iso376Class::Half,
@@ -71,6 +80,10 @@ impl Iso376Class {
     ];
 
     /// The class name as the standard writes it.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Iso376Class::Half.name(), "0.5");
+    /// ```
     pub fn name(self) -> &'static str {
         match self {
             Iso376Class::Zero0 => "00",
@@ -81,6 +94,10 @@ impl Iso376Class {
     }
 
     /// Table 2 limits (from memory).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Iso376Class::One.limits().zero, 0.050);
+    /// ```
     pub fn limits(self) -> Iso376Limits {
         let (b, bp, fc, f0, v, c, r) = match self {
             Iso376Class::Zero0 => (0.05, 0.025, 0.025, 0.012, 0.07, 0.025, 4000.0),
@@ -135,6 +152,11 @@ pub struct Iso376Data {
 
 impl Iso376Data {
     /// Data with the four increasing series, a cubic interpolation and nothing else measured.
+    ///
+    /// ```
+    /// let d = gaugebook::Iso376Data::new(vec![1.0], vec![1.0], vec![1.0], vec![1.0], vec![1.0]);
+    /// assert_eq!(d.degree, 3);
+    /// ```
     pub fn new(
         forces: Vec<f64>,
         x1: Vec<f64>,
@@ -159,6 +181,15 @@ impl Iso376Data {
 }
 
 /// The relative errors at one force step, in %.
+///
+/// ```
+/// use gaugebook::{Iso376Data, classify_iso376};
+/// let f: Vec<f64> = (1..=6).map(|i| i as f64 * 1000.0).collect();
+/// let x: Vec<f64> = f.iter().map(|f| f * 1e-4).collect();
+/// let r = classify_iso376(&Iso376Data::new(f, x.clone(), x.clone(), x.clone(), x))?;
+/// assert_eq!(r.steps[0].reproducibility, 0.0);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Iso376Step {
     /// Force (N).
@@ -178,6 +209,15 @@ pub struct Iso376Step {
 }
 
 /// The classification result.
+///
+/// ```
+/// use gaugebook::{Iso376Data, classify_iso376};
+/// let f: Vec<f64> = (1..=6).map(|i| i as f64 * 1000.0).collect();
+/// let x: Vec<f64> = f.iter().map(|f| f * 1e-4).collect();
+/// let r = classify_iso376(&Iso376Data::new(f, x.clone(), x.clone(), x.clone(), x))?;
+/// assert!(r.verdict.passed && r.zero.is_none());
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Clone, Debug, PartialEq)]
 pub struct Iso376Result {
     /// Per force step.

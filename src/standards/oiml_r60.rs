@@ -1,27 +1,33 @@
-//! OIML R 60:2021, *Metrological regulation for load cells*: accuracy classes, limits and the
+//! OIML R 60:2021, *Metrological regulation for load cells* (Part 1 requirements, Part 2 tests,
+//! Part 3 test report format, second edition 2021-10-01): accuracy classes, limits and the
 //! evaluation of a load cell test.
 //!
-//! The values below are as recalled from R 60 (they agree with the long-standing 2000 edition
-//! as far as recalled) and are each marked "(from memory)": they must be confirmed against the
-//! published text before a verdict is relied on.
-//! - Accuracy classes A, B, C, D and the number of load cell verification intervals n_LC each
-//!   allows: A ≥ 50 000; B 5 000 … 100 000; C 500 … 10 000; D 100 … 1 000 (Table 2, from memory).
-//! - Maximum permissible error (Table 5, from memory): p_LC × 0.5 v, 1.0 v, 1.5 v in the load
-//!   bands (in v) A: 0–50 000–200 000–∞; B: 0–5 000–20 000–100 000; C: 0–500–2 000–10 000;
-//!   D: 0–50–200–1 000. The apportionment factor p_LC is 0.7 unless stated, within 0.3 … 0.8
-//!   (clause 5.1.2?, from memory).
-//! - Errors are taken against a reference line through the mean output at the minimum test load
-//!   and the mean output at 75 % of the maximum test load (from memory; configurable).
-//! - Repeatability: the difference between repeated results at one load ≤ |MPE| at that load
-//!   (from memory).
-//! - Creep at the maximum test load: change over 30 min ≤ 0.7 |MPE|, and between 20 and 30 min
-//!   ≤ 0.15 |MPE| (from memory).
-//! - Minimum dead load output return (DR) after 30 min at maximum load: ≤ 0.5 v (from memory);
-//!   Z = E_max / (2 DR) (from memory).
-//! - Temperature effect on the minimum dead load output: ≤ p_LC × v_min per 5 °C (classes B, C,
-//!   D) or per 2 °C (class A) (from memory). Temperature effect on span: the MPE applies at
-//!   every test temperature (evaluate each temperature's run).
-//! - Y = E_max / v_min (from memory).
+//! Read in the public copy of R 60-1/-3:2021 (OIML's metanorma edition; the table cells and some
+//! symbols did not survive in that copy, so numbers from tables are still "from memory"):
+//! - the MPE on type evaluation is p_LC times the Table 4 values; p_LC is declared in 0.3 … 0.8,
+//!   0.7 when not declared; the MPE applies to increasing and decreasing loads (R 60-1 5.3.2);
+//! - errors are taken against the line through the mean increasing-load indication at D_min and
+//!   the one at D_min + 75 % (D_max − D_min), interpolated between the adjacent test loads when no
+//!   load was applied there (R 60-3 2.1.2.2–2.1.2.6, the conversion factor);
+//! - creep: the change over 30 min at 90–100 % of D_max ≤ 0.7 |MPE| for that load, and between
+//!   20 and 30 min ≤ 0.15 |MPE|, the MPE taken with a fixed apportioning factor whatever p_LC is
+//!   declared (R 60-1 5.5.1; the factor's value is not legible in the copy: 0.7, from memory);
+//! - minimum dead load output return DR ≤ 0.5 v (R 60-3 2.1.5.5, R 60-1 5.5.2; the unit is
+//!   not legible in the copy: v, from memory); Z, the relative minimum dead load output return,
+//!   is the maximum measuring range (E_min to E_max) over 2 DR (R 60-1 3.5), so
+//!   Z = (E_max − E_min)/(2 DR);
+//! - the change of the minimum dead load output, per 5 °C for classes B, C, D or per 2 °C for
+//!   class A, in units of v_min, must not exceed p_LC (R 60-3 2.1.4; R 60 (2000) erratum C.2.4.4);
+//! - the test interval v = (D_max − D_min)/n_max with v_min ≤ v (R 60 (2000) erratum C.4.4).
+//!
+//! From memory:
+//! - n_LC per class: A ≥ 50 000; B 5 000 … 100 000; C 500 … 10 000; D 100 … 1 000 (R 60-1 5.1.2);
+//! - Table 4 bands: p_LC × 0.5 v, 1.0 v, 1.5 v for loads (in v) A: 0–50 000–200 000–; B:
+//!   0–5 000–20 000–; C: 0–500–2 000–; D: 0–50–200–;
+//! - repeatability: the difference between repeated results at one load ≤ |MPE| (R 60-1 5.4);
+//! - Y = (E_max − E_min)/v_min, the maximum measuring range over v_min (R 60-1 3.5; the 2000
+//!   edition wrote E_max/v_min, the same for E_min = 0). The temperature effect on span is covered by applying the
+//!   MPE to the run at each test temperature (R 60-1 5.3.2 includes it).
 //!
 //! A computed class verdict is not a type approval or a legal-for-trade certificate; that
 //! follows local regulation.
@@ -50,8 +56,12 @@ pub enum OimlClass {
 }
 
 impl OimlClass {
-    /// Minimum and maximum number of load cell verification intervals n_LC (Table 2, from
+    /// Minimum and maximum number of load cell verification intervals n_LC (R 60-1 5.1.2, from
     /// memory); `None`: no upper limit.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::A.interval_range().1, None);
+    /// ```
     pub fn interval_range(self) -> (u32, Option<u32>) {
         match self {
             OimlClass::A => (50_000, None),
@@ -61,7 +71,11 @@ impl OimlClass {
         }
     }
 
-    /// Upper edges of the first two MPE bands, in verification intervals (Table 5, from memory).
+    /// Upper edges of the first two MPE bands, in verification intervals (R 60-1 Table 4, from memory).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::D.band_edges(), (50.0, 200.0));
+    /// ```
     pub fn band_edges(self) -> (f64, f64) {
         match self {
             OimlClass::A => (50_000.0, 200_000.0),
@@ -73,6 +87,10 @@ impl OimlClass {
 
     /// Temperature change over which the minimum dead load output may change by p_LC × v_min:
     /// 2 °C for class A, 5 °C otherwise (from memory).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::B.min_load_temperature_step(), 5.0);
+    /// ```
     pub fn min_load_temperature_step(self) -> f64 {
         match self {
             OimlClass::A => 2.0,
@@ -81,6 +99,10 @@ impl OimlClass {
     }
 
     /// The class letter.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OimlClass::C.letter(), "C");
+    /// ```
     pub fn letter(self) -> &'static str {
         match self {
             OimlClass::A => "A",
@@ -91,7 +113,7 @@ impl OimlClass {
     }
 
     /// Maximum permissible error, in verification intervals v, at a load of `m` intervals above
-    /// the minimum test load: p_LC × (0.5, 1.0 or 1.5) (Table 5, from memory).
+    /// the minimum test load: p_LC × (0.5, 1.0 or 1.5) (R 60-1 Table 4, from memory).
     ///
     /// ```
     /// use gaugebook::OimlClass;
@@ -134,7 +156,7 @@ pub struct R60LoadCell {
     pub v_min: f64,
     /// Apportionment factor p_LC (0.7 unless declared).
     pub p_lc: f64,
-    /// Declared Z = E_max/(2 DR), if any.
+    /// Declared Z = (E_max − E_min)/(2 DR), if any.
     pub z: Option<f64>,
     /// Fraction of the maximum test load the reference line passes through (0.75, from memory).
     pub reference_fraction: f64,
@@ -142,6 +164,13 @@ pub struct R60LoadCell {
 
 impl R60LoadCell {
     /// A load cell with p_LC = 0.7 and the default reference line.
+    ///
+    /// ```
+    /// use gaugebook::{OimlClass, R60LoadCell};
+    /// assert!(R60LoadCell::new(OimlClass::C, 3000, 1e4, 2e4, 0.5).is_err()); // E_min ≥ E_max
+    /// assert_eq!(R60LoadCell::new(OimlClass::C, 3000, 1e4, 0.0, 0.5)?.p_lc, 0.7);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(
         class: OimlClass,
         n_max: u32,
@@ -194,13 +223,25 @@ impl R60LoadCell {
         Ok(self)
     }
 
-    /// Y = E_max / v_min.
+    /// Y = (E_max − E_min)/v_min (R 60-1:2021 3.5).
+    ///
+    /// ```
+    /// let c = gaugebook::R60LoadCell::new(gaugebook::OimlClass::C, 3000, 1e4, 0.0, 1.0)?;
+    /// assert_eq!(c.y(), 1e4);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn y(&self) -> f64 {
-        self.e_max / self.v_min
+        (self.e_max - self.e_min) / self.v_min
     }
 
     /// The verification interval used in the test: v = (D_max − D_min)/n_max over the measuring
     /// range from E_min to E_max (from memory).
+    ///
+    /// ```
+    /// let c = gaugebook::R60LoadCell::new(gaugebook::OimlClass::C, 2000, 1e4, 0.0, 1.0)?;
+    /// assert_eq!(c.test_interval(), 5.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn test_interval(&self) -> f64 {
         (self.e_max - self.e_min) / self.n_max as f64
     }
@@ -260,7 +301,7 @@ pub fn evaluate_r60(
         cell.n_max as f64,
         nmin as f64,
         "",
-        "OIML R 60:2021 Table 2 (from memory)",
+        "OIML R 60-1:2021 5.1.2 (values from memory)",
     ));
     if let Some(nm) = nmax {
         checks.push(Check::at_most(
@@ -268,7 +309,7 @@ pub fn evaluate_r60(
             cell.n_max as f64,
             nm as f64,
             "",
-            "OIML R 60:2021 Table 2 (from memory)",
+            "OIML R 60-1:2021 5.1.2 (values from memory)",
         ));
     }
     checks.push(Check::at_least(
@@ -276,7 +317,7 @@ pub fn evaluate_r60(
         v,
         cell.v_min,
         "N",
-        "OIML R 60:2021, v ≥ v_min (from memory)",
+        "OIML R 60 (2000) erratum C.4.4, v_min ≤ (D_max − D_min)/n_max",
     ));
 
     // Reference line through the mean outputs at the minimum test load and at 75 % of the max.
@@ -301,25 +342,32 @@ pub fn evaluate_r60(
     })?;
     let d_max = *levels.last().unwrap_or(&d_min);
     let ref_load = d_min + cell.reference_fraction * (d_max - d_min);
-    let ref_level = levels
+    // Interpolate between the adjacent increasing-load means when no load was applied at the
+    // 75 % point (R 60-3 2.1.2.3).
+    let means: Vec<(f64, f64)> = levels
         .iter()
-        .copied()
-        .min_by(|a, b| (a - ref_load).abs().total_cmp(&(b - ref_load).abs()))
-        .unwrap_or(d_max);
-    if (ref_level - ref_load).abs() > 0.01 * (d_max - d_min) || ref_level == d_min {
+        .filter_map(|&l| mean_at(l).map(|m| (l, m)))
+        .collect();
+    let upper = means
+        .iter()
+        .position(|&(l, _)| l >= ref_load - tol)
+        .unwrap_or(means.len());
+    if upper == 0 || upper == means.len() || levels.len() < 2 {
         return Err(PhysicsError::invalid(
             "R 60 test loads",
-            format!("no ascending load near {ref_load} N (closest {ref_level} N)"),
-            format!(
-                "a test load at {} % of the maximum test load for the reference line",
-                cell.reference_fraction * 100.0
-            ),
+            format!("increasing loads that do not bracket {ref_load} N"),
+            "increasing-load readings at D_min and on both sides of 75 % of the range",
         ));
     }
-    let (y0, y1) = (
-        mean_at(d_min).unwrap_or(f64::NAN),
-        mean_at(ref_level).unwrap_or(f64::NAN),
-    );
+    let (la, ya) = means[upper - 1];
+    let (lb, yb) = means[upper];
+    let y1 = if (lb - ref_load).abs() <= tol {
+        yb
+    } else {
+        ya + (yb - ya) * (ref_load - la) / (lb - la)
+    };
+    let y0 = means[0].1;
+    let ref_level = ref_load;
     let slope = (y1 - y0) / (ref_level - d_min);
     if !(slope.is_finite() && slope != 0.0) {
         return Err(PhysicsError::invalid(
@@ -329,7 +377,7 @@ pub fn evaluate_r60(
         ));
     }
     let err_n = |load: f64, ind: f64| (ind - (y0 + slope * (load - d_min))) / slope;
-    let src_mpe = "OIML R 60:2021 Table 5, p_LC × MPE (from memory)";
+    let src_mpe = "OIML R 60-1:2021 5.3.2, p_LC × Table 4 (band values from memory)";
     for p in run.points() {
         let m = (p.load - d_min) / v;
         let mpe = class.mpe_intervals(m, cell.p_lc) * v;
@@ -361,25 +409,27 @@ pub fn evaluate_r60(
                 (hi - lo) / slope.abs(),
                 mpe,
                 "N",
-                "OIML R 60:2021 repeatability ≤ |MPE| (from memory)",
+                "OIML R 60-1:2021 5.4, repeatability ≤ |MPE| (from memory)",
             ));
         }
     }
     if let Some(h) = &extras.creep {
-        let mpe = class.mpe_intervals((d_max - d_min) / v, cell.p_lc) * v;
+        // R 60-1 5.5.1: the creep MPE uses a fixed apportioning factor whatever p_LC is
+        // declared; 0.7 (from memory, the value is not legible in the copy read).
+        let mpe = class.mpe_intervals((d_max - d_min) / v, 0.7) * v;
         checks.push(Check::at_most(
             "creep over 30 min at the maximum test load",
             h.change(0.0, 1800.0)? / slope,
             0.7 * mpe,
             "N",
-            "OIML R 60:2021 creep ≤ 0.7 |MPE| over 30 min (from memory)",
+            "OIML R 60-1:2021 5.5.1, ≤ 0.7 |MPE|",
         ));
         checks.push(Check::at_most(
             "creep between 20 and 30 min",
             h.change(1200.0, 1800.0)? / slope,
             0.15 * mpe,
             "N",
-            "OIML R 60:2021 creep ≤ 0.15 |MPE| from 20 to 30 min (from memory)",
+            "OIML R 60-1:2021 5.5.1, ≤ 0.15 |MPE|",
         ));
     }
     if let Some(dr) = extras.dead_load_return {
@@ -388,15 +438,15 @@ pub fn evaluate_r60(
             dr,
             0.5 * v,
             "N",
-            "OIML R 60:2021 DR ≤ 0.5 v (from memory)",
+            "OIML R 60-3:2021 2.1.5.5, DR ≤ 0.5 v (unit from memory)",
         ));
         if let Some(z) = cell.z {
             checks.push(Check::at_most(
                 "DR against the declared Z",
                 dr,
-                cell.e_max / (2.0 * z),
+                (cell.e_max - cell.e_min) / (2.0 * z),
                 "N",
-                "OIML R 60:2021 Z = E_max/(2 DR) (from memory)",
+                "OIML R 60-1:2021 3.5, Z = (E_max − E_min)/(2 DR)",
             ));
         }
     }
@@ -404,11 +454,14 @@ pub fn evaluate_r60(
         crate::check_positive("temperature change", dt.abs(), "K")?;
         let per_step = change.abs() / dt.abs() * class.min_load_temperature_step();
         checks.push(Check::at_most(
-            &format!("minimum dead load output change per {} °C", class.min_load_temperature_step()),
+            &format!(
+                "minimum dead load output change per {} °C",
+                class.min_load_temperature_step()
+            ),
             per_step,
             cell.p_lc * cell.v_min,
             "N",
-            "OIML R 60:2021 temperature effect on minimum dead load output ≤ p_LC v_min (from memory)",
+            "OIML R 60-3:2021 2.1.4, ≤ p_LC v_min",
         ));
     }
     Ok(ClassVerdict::new(

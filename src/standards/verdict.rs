@@ -38,6 +38,11 @@ pub struct Check {
 
 impl Check {
     /// A check that passes when |value| ≤ limit.
+    ///
+    /// ```
+    /// let c = gaugebook::Check::at_most("error", -0.8, 0.7, "v", "Table 5");
+    /// assert!(!c.passed); // the limit is on the magnitude
+    /// ```
     pub fn at_most(name: &str, value: f64, limit: f64, unit: &str, source: &str) -> Check {
         Check {
             name: name.to_string(),
@@ -70,6 +75,11 @@ impl Check {
 
     /// How much of the limit is used: |value|/limit (or limit/value for "at least" checks);
     /// above 1 fails.
+    ///
+    /// ```
+    /// let c = gaugebook::Check::at_least("n", 4000.0, 500.0, "", "Table 2");
+    /// assert_eq!(c.ratio(), 0.125);
+    /// ```
     pub fn ratio(&self) -> f64 {
         if self.at_least {
             if self.value > 0.0 {
@@ -119,6 +129,11 @@ pub struct ClassVerdict {
 
 impl ClassVerdict {
     /// A verdict from its checks.
+    ///
+    /// ```
+    /// let v = gaugebook::ClassVerdict::new("ISO 376:2011", "1", vec![]);
+    /// assert!(!v.passed); // no checks, no pass
+    /// ```
     pub fn new(standard: &str, class: &str, checks: Vec<Check>) -> ClassVerdict {
         let passed = !checks.is_empty() && checks.iter().all(|c| c.passed);
         ClassVerdict {
@@ -130,6 +145,12 @@ impl ClassVerdict {
     }
 
     /// The check that decides the verdict.
+    ///
+    /// ```
+    /// use gaugebook::{Check, ClassVerdict};
+    /// let v = ClassVerdict::new("s", "c", vec![Check::at_most("a", 1.0, 2.0, "", ""), Check::at_most("b", 1.9, 2.0, "", "")]);
+    /// assert_eq!(v.deciding().unwrap().name, "b");
+    /// ```
     pub fn deciding(&self) -> Option<&Check> {
         self.checks
             .iter()

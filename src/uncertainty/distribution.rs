@@ -60,6 +60,10 @@ pub enum Distribution {
 
 impl Distribution {
     /// The expectation (best estimate).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Distribution::Arcsine { mean: 3.0, half_width: 1.0 }.mean(), 3.0);
+    /// ```
     pub fn mean(&self) -> f64 {
         match *self {
             Distribution::Normal { mean, .. }

@@ -44,6 +44,12 @@ impl Input {
     /// A type A input from repeated observations (JCGM 100, 4.2.1–4.2.3): mean, experimental
     /// standard deviation of the mean s/√n, ν = n − 1; Monte Carlo draws from the scaled and
     /// shifted t (JCGM 101, 6.4.9.7, from memory).
+    ///
+    /// ```
+    /// let i = gaugebook::Input::type_a("r", &[1.0, 2.0, 3.0])?;
+    /// assert!((i.standard_uncertainty - (1.0f64 / 3.0).sqrt()).abs() < 1e-15); // s/√n, s = 1
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn type_a(name: &str, observations: &[f64]) -> Result<Input, PhysicsError> {
         let n = observations.len();
         if n < 2 {
@@ -74,6 +80,13 @@ impl Input {
     }
 
     /// A type B input from a distribution, ν = ∞.
+    ///
+    /// ```
+    /// use gaugebook::{Distribution, Input};
+    /// let i = Input::type_b("t", Distribution::Triangular { mean: 0.0, half_width: 6f64.sqrt() })?;
+    /// assert!((i.standard_uncertainty - 1.0).abs() < 1e-15);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn type_b(name: &str, distribution: Distribution) -> Result<Input, PhysicsError> {
         let u = distribution.standard_uncertainty()?;
         Ok(Input {
@@ -187,6 +200,14 @@ pub struct Contribution {
 }
 
 /// The result of a GUM evaluation.
+///
+/// ```
+/// use gaugebook::{Budget, Input};
+/// let b = Budget::new(vec![Input::normal("a", 1.0, 0.1, 5.0)?, Input::normal("b", 2.0, 0.2, 10.0)?]);
+/// let r = b.evaluate(|x| x[0] * x[1])?;
+/// assert!((r.value - 2.0).abs() < 1e-15 && r.dof_eff > 5.0);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Clone, Debug, PartialEq)]
 pub struct GumResult {
     /// Output estimate y = f(x).
@@ -200,6 +221,14 @@ pub struct GumResult {
 }
 
 /// An expanded uncertainty at a coverage probability.
+///
+/// ```
+/// use gaugebook::{Budget, Input};
+/// let b = Budget::new(vec![Input::normal("a", 1.0, 0.1, 5.0)?, Input::normal("b", 2.0, 0.2, 10.0)?]);
+/// let e = b.evaluate(|x| x[0] + x[1])?.expanded(0.95)?;
+/// assert!((e.high - e.low - 2.0 * e.expanded).abs() < 1e-15);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Expanded {
     /// Coverage probability p.
@@ -264,6 +293,13 @@ pub struct Budget {
 
 impl Budget {
     /// A budget of uncorrelated inputs.
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Input};
+    /// let b = Budget::new(vec![Input::normal("a", 1.0, 0.1, 5.0)?, Input::normal("b", 2.0, 0.2, 10.0)?]);
+    /// assert!(!b.has_correlations());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(inputs: Vec<Input>) -> Budget {
         Budget {
             inputs,
@@ -272,11 +308,25 @@ impl Budget {
     }
 
     /// The inputs.
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Input};
+    /// let b = Budget::new(vec![Input::normal("a", 1.0, 0.1, 5.0)?, Input::normal("b", 2.0, 0.2, 10.0)?]);
+    /// assert_eq!(b.inputs()[1].name, "b");
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn inputs(&self) -> &[Input] {
         &self.inputs
     }
 
     /// The correlation coefficient r(x_i, x_j) (1 on the diagonal, 0 if not set).
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Input};
+    /// let b = Budget::new(vec![Input::normal("a", 1.0, 0.1, 5.0)?, Input::normal("b", 2.0, 0.2, 10.0)?]);
+    /// assert_eq!((b.correlation(0, 0), b.correlation(0, 1)), (1.0, 0.0));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn correlation(&self, i: usize, j: usize) -> f64 {
         if i == j {
             return 1.0;
@@ -322,11 +372,29 @@ impl Budget {
     }
 
     /// True if any pair is correlated.
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Input};
+    /// let b = Budget::new(vec![Input::normal("a", 1.0, 0.1, 5.0)?, Input::normal("b", 2.0, 0.2, 10.0)?]);
+    /// let mut b = b;
+    /// b.correlate(0, 1, -0.5)?;
+    /// assert!(b.has_correlations());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn has_correlations(&self) -> bool {
         self.correlations.iter().any(|&(_, _, r)| r != 0.0)
     }
 
     /// Evaluates a scalar model with sensitivities by central differences (step u_i).
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Input};
+    /// let b = Budget::new(vec![Input::normal("a", 1.0, 0.1, 5.0)?, Input::normal("b", 2.0, 0.2, 10.0)?]);
+    /// let r = b.evaluate(|x| x[0] * x[1])?;
+    /// // c = (x₂, x₁) = (2, 1): u = √((2·0.1)² + (1·0.2)²)
+    /// assert!((r.combined - 0.08f64.sqrt()).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn evaluate(&self, model: impl Fn(&[f64]) -> f64) -> Result<GumResult, PhysicsError> {
         self.evaluate_columns(|cols: &[Vec<f64>]| {
             let n = cols.first().map_or(0, Vec::len);

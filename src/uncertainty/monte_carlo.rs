@@ -54,6 +54,14 @@ pub struct MonteCarlo {
 }
 
 /// The distribution of the output as M sorted values.
+///
+/// ```
+/// use gaugebook::{Budget, Distribution, Input, MonteCarlo};
+/// let b = Budget::new(vec![Input::type_b("x", Distribution::Normal { mean: 1.0, sd: 0.1 })?]);
+/// let r = MonteCarlo::new(10_000, 2).run(&b, |c: &[Vec<f64>]| c[0].iter().map(|x| x * x).collect())?;
+/// assert!((r.value - 1.01).abs() < 0.01); // E[x²] = 1 + 0.01
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Clone, Debug, PartialEq)]
 pub struct McResult {
     /// Mean of the output values (the estimate, JCGM 101 7.6).
@@ -64,6 +72,16 @@ pub struct McResult {
 }
 
 /// The JCGM 101 §8 comparison of a GUM interval with a Monte Carlo interval.
+///
+/// ```
+/// use gaugebook::{Budget, Distribution, Input, IntervalKind, MonteCarlo};
+/// let b = Budget::new(vec![Input::type_b("x", Distribution::Normal { mean: 0.0, sd: 1.0 })?]);
+/// let gum = b.evaluate(|x| x[0])?;
+/// let mc = MonteCarlo::new(100_000, 4).run(&b, |c: &[Vec<f64>]| c[0].clone())?;
+/// let v = mc.validate(&gum, 0.95, 1, IntervalKind::Symmetric)?;
+/// assert_eq!(v.delta, 0.5);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Validation {
     /// Numerical tolerance δ.
@@ -78,6 +96,11 @@ pub struct Validation {
 
 impl MonteCarlo {
     /// M trials from a seed. JCGM 101 7.2.2 suggests M = 10⁶ for a 95 % interval.
+    ///
+    /// ```
+    /// let m = gaugebook::MonteCarlo::new(1_000_000, 1);
+    /// assert_eq!((m.trials, m.seed), (1_000_000, 1));
+    /// ```
     pub fn new(trials: usize, seed: u64) -> MonteCarlo {
         MonteCarlo { trials, seed }
     }
@@ -148,6 +171,14 @@ impl MonteCarlo {
     }
 
     /// Runs the model over the drawn columns and summarises the output.
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Distribution, Input, MonteCarlo};
+    /// let b = Budget::new(vec![Input::type_b("x", Distribution::Normal { mean: 1.0, sd: 0.1 })?]);
+    /// let r = MonteCarlo::new(10_000, 2).run(&b, |c: &[Vec<f64>]| c[0].iter().map(|x| x * x).collect())?;
+    /// assert_eq!(r.sorted_values().len(), 10_000);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn run(
         &self,
         budget: &Budget,
@@ -182,6 +213,15 @@ impl MonteCarlo {
 
 impl McResult {
     /// The sorted output values (for histograms).
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Distribution, Input, MonteCarlo};
+    /// let b = Budget::new(vec![Input::type_b("x", Distribution::Normal { mean: 1.0, sd: 0.1 })?]);
+    /// let r = MonteCarlo::new(10_000, 2).run(&b, |c: &[Vec<f64>]| c[0].iter().map(|x| x * x).collect())?;
+    /// let v = r.sorted_values();
+    /// assert!(v.windows(2).all(|w| w[0] <= w[1]));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn sorted_values(&self) -> &[f64] {
         &self.sorted
     }

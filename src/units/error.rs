@@ -87,6 +87,17 @@ pub enum UnitError {
         /// The right operand as written for a person.
         right: String,
     },
+    /// A temperature difference asked for on a temperature scale: a conversion never turns a
+    /// difference into a reading.
+    #[error(
+        "cannot express the temperature difference {quantity} in {unit}: add it to a reading (20 °C + {quantity}) instead"
+    )]
+    DifferenceAsReading {
+        /// The difference as written for a person.
+        quantity: String,
+        /// The scale asked for.
+        unit: String,
+    },
     /// A quantity handed to the Rust API as a uom quantity or newtype of another dimension or
     /// kind.
     #[error("expected {expected}, found {found}")]

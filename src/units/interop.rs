@@ -5,10 +5,9 @@
 //! and says what it expected: a strain cannot become a plain [`Ratio`], and an output ratio
 //! cannot become a strain.
 //!
-//! Temperatures: a [`ThermodynamicTemperature`] accepts a reading or a kelvin value (kelvin
-//! counts from absolute zero, so `300 K` is a thermodynamic temperature); a
-//! [`TemperatureInterval`] accepts only a difference, because a reading passed as a difference
-//! is the classic °C-offset mistake.
+//! Temperatures: a [`ThermodynamicTemperature`] accepts only a reading and a
+//! [`TemperatureInterval`] only a difference, because one passed as the other is the classic
+//! °C-offset mistake (see [`Kind`] for how to write a thermodynamic temperature in kelvin).
 
 use super::si::*;
 use super::table::dim_of;
@@ -133,8 +132,8 @@ bridge!(
     ThermodynamicTemperature,
     thermodynamic_temperature,
     AbsoluteTemperature,
-    [AbsoluteTemperature, Interval],
-    "a temperature (°C, K)"
+    [AbsoluteTemperature],
+    "a temperature reading (°C, °F)"
 );
 bridge!(Time, time, Plain, [Plain], "a time (s)");
 bridge!(Torque, torque, Plain, [Plain], "a torque (N·m)");
@@ -203,7 +202,11 @@ mod tests {
     fn temperatures() {
         let t = ThermodynamicTemperature::try_from(&Quantity::parse("25 degC").unwrap()).unwrap();
         assert!((t.get::<degree_celsius>() - 25.0).abs() < 1e-12);
-        assert!(ThermodynamicTemperature::try_from(&Quantity::parse("300 K").unwrap()).is_ok());
+        let e = ThermodynamicTemperature::try_from(&Quantity::parse("300 K").unwrap());
+        assert_eq!(
+            e.unwrap_err().to_string(),
+            "expected a temperature reading (°C, °F), found 300 K"
+        );
         assert!(TemperatureInterval::try_from(&Quantity::parse("25 degC").unwrap()).is_err());
         assert_eq!(Quantity::from(t).kind(), Kind::AbsoluteTemperature);
     }

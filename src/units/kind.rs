@@ -26,8 +26,11 @@ use super::Dimension;
 ///   written `delta_degC`, `delta_degF`) is a
 ///   [`TemperatureInterval`](Kind::TemperatureInterval). Reading ± difference is a reading;
 ///   reading − reading is a difference; reading + reading is refused. The kelvin is the unit of
-///   differences, and because kelvin values count from absolute zero, [`Quantity::to`] converts
-///   between the two kinds (300 K to °C is 26.85 °C, as pint does; 25 °C to K is 298.15 K).
+///   differences. A reading may be expressed in kelvin ([`Quantity::to`]: 25 °C is 298.15 K,
+///   still a reading), but a difference is never turned into a reading by a conversion:
+///   `5 K` to °C is refused, because nothing tells 5 K from 5 Δ°C once parsed. A thermodynamic
+///   temperature in kelvin is built with `Quantity::from_si(t, Dimension::TEMPERATURE,
+///   Kind::AbsoluteTemperature)` or `.with_kind(Kind::AbsoluteTemperature)`, or written in °C.
 ///   Inside a compound unit a scale means a difference (`ppm/°C`).
 ///
 /// [`Quantity::to`]: crate::Quantity::to
@@ -49,9 +52,9 @@ pub enum Kind {
     OutputRatio,
     /// Plane angle (rad, °).
     Angle,
-    /// A thermodynamic temperature on an absolute scale (K, °C, °F as a reading).
+    /// A temperature reading on a scale (°C, °F; shown in K on request).
     AbsoluteTemperature,
-    /// A difference of temperatures (K, Δ°C, Δ°F).
+    /// A difference of temperatures, or any kelvin value (K, Δ°C, Δ°F).
     TemperatureInterval,
 }
 

@@ -24,6 +24,22 @@ use super::{Dimension, Kind, Unit, UnitError, format, parse};
 /// assert_eq!(r.try_add(&v).unwrap_err().to_string(), "cannot add 350 Ω and 5 V");
 /// # Ok::<(), gaugebook::units::UnitError>(())
 /// ```
+///
+/// The physics API takes uom quantities and the [`Strain`](crate::Strain) and
+/// [`OutputRatio`](crate::OutputRatio) newtypes; `From` and `TryFrom` bridge them, checking
+/// dimension and kind:
+///
+/// ```
+/// use gaugebook::Strain;
+/// use gaugebook::units::{Force, Quantity};
+/// use uom::si::force::newton;
+/// let f = Force::try_from(&Quantity::parse("2 kN")?)?;
+/// assert_eq!(f.get::<newton>(), 2000.0);
+/// assert_eq!(Quantity::from(f).to_string(), "2 kN");
+/// let e = Strain::try_from(Quantity::parse("0.5 mV/V")?).unwrap_err();
+/// assert_eq!(e.to_string(), "expected a strain (µε, ε), found 0.5 mV/V");
+/// # Ok::<(), gaugebook::units::UnitError>(())
+/// ```
 #[derive(Clone, Debug)]
 pub struct Quantity {
     si: f64,
@@ -158,6 +174,12 @@ impl Quantity {
             text: text.to_string(),
             reason: format!("`{num}` is not a number"),
         })?;
+        if !value.is_finite() {
+            return Err(UnitError::BadQuantity {
+                text: text.to_string(),
+                reason: format!("`{num}` is too large for a 64-bit float"),
+            });
+        }
         let unit = parse::parse_unit_in(text, i)?;
         Ok(Quantity::in_unit(value, Arc::new(unit)))
     }
@@ -225,17 +247,19 @@ impl Quantity {
 
     /// Re-expresses the quantity in another unit, which becomes its display unit.
     ///
-    /// The unit must have the same dimension and a compatible kind: the same kind; or a plain
-    /// ratio for a strain or output ratio (`1000 µε` in `%` is `0.1 %`, still a strain); or the
-    /// other temperature kind, counted from absolute zero (`300 K` in `degC` is `26.85 °C`, a
-    /// reading; `25 °C` in `K` is `298.15 K`, a kelvin value). The result takes the unit's
-    /// temperature kind.
+    /// The unit must have the same dimension and a compatible kind: the same kind; or a named
+    /// plain ratio (`%`, `ppm`) for a strain or output ratio (`1000 µε` in `%` is `0.1 %`, still
+    /// a strain; a bare number is refused, so a strain cannot pass for a plain ratio); or, for a
+    /// temperature reading, a difference unit counted from absolute zero (`25 °C` in `K` is
+    /// `298.15 K`, still a reading). A difference is never converted to a reading (`5 K` in
+    /// `degC` is refused; see [`Kind`]).
     ///
     /// ```
     /// use gaugebook::units::Quantity;
     /// let r = Quantity::parse("174650 ohm")?.to("kohm")?;
     /// assert_eq!(r.to_string(), "174.65 kΩ");
-    /// assert_eq!(Quantity::parse("300 K")?.to("degC")?.to_string(), "26.85 °C");
+    /// assert_eq!(Quantity::parse("25 degC")?.to("K")?.to_string(), "298.15 K");
+    /// assert!(Quantity::parse("5 K")?.to("degC").is_err());
     /// let e = Quantity::parse("500 ue")?.to("mV/V").unwrap_err();
     /// assert_eq!(e.to_string(), "cannot express 500 µε in mV/V");
     /// # Ok::<(), gaugebook::units::UnitError>(())
@@ -288,12 +312,17 @@ impl Quantity {
         } else {
             match (self.kind, u.kind()) {
                 (a, b) if a == b => Some(a),
-                (Strain | OutputRatio, Plain) => Some(self.kind),
-                (AbsoluteTemperature, TemperatureInterval)
-                | (TemperatureInterval, AbsoluteTemperature) => Some(u.kind()),
+                (Strain | OutputRatio, Plain) if !u.symbol().is_empty() => Some(self.kind),
+                (AbsoluteTemperature, TemperatureInterval) => Some(AbsoluteTemperature),
                 _ => None,
             }
         };
+        if kind.is_none() && self.kind == TemperatureInterval && u.kind() == AbsoluteTemperature {
+            return Err(UnitError::DifferenceAsReading {
+                quantity: self.to_string(),
+                unit: u.symbol().into(),
+            });
+        }
         kind.ok_or_else(|| UnitError::NotConvertible {
             quantity: self.to_string(),
             unit: if u.symbol().is_empty() {
@@ -543,14 +572,25 @@ impl Quantity {
 }
 
 /// Writes the value in its display unit, else in a unit chosen from its dimension and kind,
-/// with 6 significant figures: `0.4995 mV/V`, `1000 µε`, `174.65 kΩ`.
+/// with 6 significant figures (`{:.3}` asks for 3): `0.4995 mV/V`, `1000 µε`, `174.65 kΩ`.
+///
+/// ```
+/// use gaugebook::units::Quantity;
+/// let r = Quantity::parse("350 ohm")?.scale(1.0 / 3.0);
+/// assert_eq!(r.to_string(), "116.667 Ω");
+/// assert_eq!(format!("{r:.3}"), "117 Ω");
+/// # Ok::<(), gaugebook::units::UnitError>(())
+/// ```
 impl fmt::Display for Quantity {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let sig = f
+            .precision()
+            .map_or(format::SIGNIFICANT, |p| p.min(17) as i32);
         let s = match &self.unit {
-            Some(u) => format::join(u.from_si(self.si), u.symbol()),
+            Some(u) => format::join_sig(u.from_si(self.si), u.symbol(), sig),
             None => {
                 let (v, u) = format::auto(self.si, self.dim, self.kind);
-                format::join(v, &u)
+                format::join_sig(v, &u, sig)
             }
         };
         f.write_str(&s)
@@ -591,6 +631,15 @@ mod tests {
             Quantity::parse(""),
             Err(UnitError::BadQuantity { .. })
         ));
+    }
+
+    #[test]
+    fn overflowing_numbers() {
+        let e = Quantity::parse("1e400 V").unwrap_err();
+        assert_eq!(
+            e.to_string(),
+            "cannot read `1e400 V` as a quantity: `1e400` is too large for a 64-bit float"
+        );
     }
 
     #[test]
