@@ -33,7 +33,7 @@ enum Command {
 pub fn main() -> ExitCode {
     let args = Args::parse();
     let result: anyhow::Result<()> = match args.command {
-        Command::Demo => Ok(()),
+        Command::Demo => demo(),
         Command::Kernel { command } => kernel::kernel(command).map(|_| ()),
     };
     match result {
@@ -43,4 +43,15 @@ pub fn main() -> ExitCode {
             ExitCode::FAILURE
         }
     }
+}
+
+/// Prints the embedded worked design.
+fn demo() -> anyhow::Result<()> {
+    let report = gaugebook_demo()?;
+    println!("{report}");
+    Ok(())
+}
+
+fn gaugebook_demo() -> anyhow::Result<crate::DesignReport> {
+    Ok(crate::bridge_design_demo()?)
 }
