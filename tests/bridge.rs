@@ -277,3 +277,342 @@ proptest! {
         prop_assert!((b.output_ratio().value() + s.output_ratio().value()).abs() < 1e-14);
     }
 }
+
+mod leads_and_shunts {
+    use gaugebook::units::{Area, ElectricalResistance, Length, PowerDensity, TemperatureInterval};
+    use gaugebook::{
+        ArmId, Arrangement, Excitation, Gauge, GaugeDissipation, LeadWire, OutputRatio,
+        PhysicsError, QuarterLeads, QuarterWiring, ShuntCalibration, ShuntDefinition, Strain,
+        SupplyLeads, SupplyWiring,
+    };
+    use uom::si::area::square_millimeter;
+    use uom::si::electric_potential::volt;
+    use uom::si::electrical_resistance::{kiloohm, ohm};
+    use uom::si::heat_flux_density::watt_per_square_meter;
+    use uom::si::length::{meter, millimeter};
+    use uom::si::power::watt;
+    use uom::si::temperature_interval::kelvin;
+
+    use crate::common::assert_close;
+
+    fn ohms(v: f64) -> ElectricalResistance {
+        ElectricalResistance::new::<ohm>(v)
+    }
+
+    fn dk(v: f64) -> TemperatureInterval {
+        TemperatureInterval::new::<kelvin>(v)
+    }
+
+    fn gauge(r: f64) -> Gauge {
+        Gauge::new(ohms(r), 2.0).unwrap()
+    }
+
+    #[test]
+    fn copper_wire_resistance_per_metre() {
+        // IEC 60028 (from memory): annealed copper 1/58 Ω·mm²/m at 20 °C, so 100 m of 1 mm²
+        // is 1.724 14 Ω.
+        let w = LeadWire::copper_wire(
+            Length::new::<meter>(100.0),
+            Area::new::<square_millimeter>(1.0),
+        )
+        .unwrap();
+        assert_close(w.resistance().get::<ohm>(), 100.0 / 58.0, 1e-14, 0.0);
+        // IEC 60028 / NIST Handbook 100 (from memory): α20 = 0.003 93 K⁻¹.
+        assert_close(
+            w.resistance_after(dk(50.0)).unwrap().get::<ohm>(),
+            100.0 / 58.0 * 1.1965,
+            1e-14,
+            0.0,
+        );
+    }
+
+    #[test]
+    fn two_wire_desensitisation_and_apparent_strain() {
+        // Dally & Riley, 4th ed., ch. 6 and Window, 2nd ed., ch. 3 (from memory): two-wire leads
+        // desensitise by R_g/(R_g + 2R_L) and, warming by ΔT, read ε ≈ 2R_L·α·ΔT/(F·R_g).
+        let q = QuarterLeads::new(
+            &gauge(350.0),
+            QuarterWiring::TwoWire,
+            LeadWire::copper(ohms(0.2)).unwrap(),
+        );
+        assert_close(q.sensitivity_factor(), 350.0 / 350.4, 1e-15, 0.0);
+        let app = q.apparent_strain(dk(20.0)).unwrap();
+        assert_close(
+            app.value(),
+            2.0 * 0.2 * 0.00393 * 20.0 / (2.0 * 350.0),
+            2e-3,
+            0.0,
+        );
+        // And the span: a true 1000 µε reads R_g/(R_g + 2R_L) of it, to within the bridge's
+        // nonlinearity with unequal arms (well under 0.1 %).
+        let ind = q
+            .indicated_strain(Strain::from_microstrain(1000.0), dk(0.0))
+            .unwrap();
+        assert_close(ind.microstrain(), 1000.0 * 350.0 / 350.4, 1e-3, 0.0);
+        assert_close(q.corrected_strain(ind).microstrain(), 1000.0, 1e-3, 0.0);
+    }
+
+    #[test]
+    fn three_wire_cancels_lead_temperature() {
+        // Window, 2nd ed., ch. 3 (from memory): with a lead in each of the adjacent arms R1 and R2
+        // and R1 = R2 at the start, a lead temperature change leaves the bridge balanced.
+        let q = QuarterLeads::new(
+            &gauge(120.0),
+            QuarterWiring::ThreeWire,
+            LeadWire::copper(ohms(2.0)).unwrap(),
+        );
+        for t in [-40.0, 10.0, 80.0] {
+            assert!(q.apparent_strain(dk(t)).unwrap().value().abs() < 1e-15);
+        }
+        assert_close(q.sensitivity_factor(), 120.0 / 122.0, 1e-15, 0.0);
+        assert!(q.zero_offset().unwrap().value().abs() < 1e-16);
+        // The cancellation needs matched arms: an 121 Ω completion leaves a residue.
+        let q = q.with_completion(ohms(121.0)).unwrap();
+        assert!(q.apparent_strain(dk(30.0)).unwrap().value().abs() > 1e-8);
+    }
+
+    #[test]
+    fn remote_sense_removes_supply_lead_effects() {
+        // Window, 2nd ed., ch. 3 (from memory); common practice: four-wire span factor
+        // R_b/(R_b + 2R_L), none with six wires, and no zero shift in either.
+        let lead = LeadWire::copper(ohms(1.5)).unwrap();
+        let four = SupplyLeads::new(ohms(350.0), SupplyWiring::FourWire, lead).unwrap();
+        let six = SupplyLeads::new(ohms(350.0), SupplyWiring::SixWire, lead).unwrap();
+        assert_close(
+            four.sensitivity_factor(dk(0.0)).unwrap(),
+            350.0 / 353.0,
+            1e-15,
+            0.0,
+        );
+        assert_eq!(six.span_error(dk(40.0)).unwrap(), 0.0);
+        // Linear form of the span change: ≈ −2R_L·α·ΔT/(R_b + 2R_L).
+        assert_close(
+            four.span_error(dk(40.0)).unwrap(),
+            -2.0 * 1.5 * 0.00393 * 40.0 / 353.0,
+            2e-3,
+            0.0,
+        );
+        let r = OutputRatio::from_mv_per_v(2.0);
+        let back = four
+            .corrected_ratio(four.seen_ratio(r, dk(25.0)).unwrap(), dk(25.0))
+            .unwrap();
+        assert_close(back.value(), r.value(), 1e-14, 0.0);
+    }
+
+    #[test]
+    fn shunt_resistance_equivalent_worked_value() {
+        // Dally & Riley, 4th ed., ch. 6 (from memory): ε = −R/(F(R + R_s)); for R = 350 Ω and
+        // F = 2 a 174.65 kΩ shunt simulates −1000 µε.
+        let c = ShuntCalibration::simulate(
+            Arrangement::Quarter,
+            &gauge(350.0),
+            0.3,
+            ArmId::R1,
+            ElectricalResistance::new::<kiloohm>(174.65),
+            ShuntDefinition::ResistanceEquivalent,
+        )
+        .unwrap();
+        assert_close(c.strain().microstrain(), -1000.0, 1e-12, 0.0);
+        assert_eq!(c.definition(), ShuntDefinition::ResistanceEquivalent);
+    }
+
+    #[test]
+    fn shunt_definitions_agree_on_the_active_quarter_arm() {
+        // Closed-form identity: the quarter-bridge exact inverse undoes a change in R1 exactly.
+        for rs in [10.0e3, 59.65e3, 174.65e3, 1.0e6] {
+            let sim = |d| {
+                ShuntCalibration::simulate(
+                    Arrangement::Quarter,
+                    &gauge(350.0),
+                    0.3,
+                    ArmId::R1,
+                    ohms(rs),
+                    d,
+                )
+                .unwrap()
+                .strain()
+                .value()
+            };
+            assert_close(
+                sim(ShuntDefinition::IndicatedReading),
+                sim(ShuntDefinition::ResistanceEquivalent),
+                1e-12,
+                0.0,
+            );
+        }
+    }
+
+    #[test]
+    fn shunt_in_a_full_bridge_reads_a_quarter_of_its_arm_strain() {
+        // Closed form: one arm of a full bending bridge moved by x reads x/(4+2x) = F·ε_ind, so
+        // the indicated strain is about the resistance-equivalent one over the bridge factor 4.
+        let g = gauge(350.0);
+        let rs = ElectricalResistance::new::<kiloohm>(87.15);
+        let re = ShuntCalibration::simulate(
+            Arrangement::FullBending,
+            &g,
+            0.3,
+            ArmId::R2,
+            rs,
+            ShuntDefinition::ResistanceEquivalent,
+        )
+        .unwrap();
+        let ind = ShuntCalibration::simulate(
+            Arrangement::FullBending,
+            &g,
+            0.3,
+            ArmId::R2,
+            rs,
+            ShuntDefinition::IndicatedReading,
+        )
+        .unwrap();
+        assert_close(ind.strain().value(), re.strain().value() / 4.0, 3e-3, 0.0);
+        let x = -350.0 / (350.0 + 87150.0);
+        // R2 falls by x: output −x/(4+2x) > 0, read through F·ε = r.
+        assert_close(ind.strain().value(), -x / (4.0 + 2.0 * x) / 2.0, 1e-12, 0.0);
+    }
+
+    #[test]
+    fn shunt_for_target_round_trips() {
+        // Closed-form identity: simulate(resistor_for(ε)) = ε, for every arrangement, arm and
+        // definition where a shunt can reach the target.
+        let g = gauge(350.0);
+        for a in Arrangement::ALL {
+            for arm in [ArmId::R1, ArmId::R2, ArmId::R3, ArmId::R4] {
+                for d in [
+                    ShuntDefinition::ResistanceEquivalent,
+                    ShuntDefinition::IndicatedReading,
+                ] {
+                    for ue in [-2000.0, -500.0, 500.0, 2000.0] {
+                        match ShuntCalibration::resistor_for(
+                            a,
+                            &g,
+                            0.3,
+                            arm,
+                            Strain::from_microstrain(ue),
+                            d,
+                        ) {
+                            Ok(c) => assert_close(c.strain().microstrain(), ue, 1e-9, 0.0),
+                            Err(e) => assert!(matches!(e, PhysicsError::NoSolution { .. }), "{e}"),
+                        }
+                    }
+                }
+            }
+        }
+        // And a tension target across R2 works where across R1 it cannot.
+        let ok = ShuntCalibration::resistor_for(
+            Arrangement::Quarter,
+            &g,
+            0.3,
+            ArmId::R2,
+            Strain::from_microstrain(1000.0),
+            ShuntDefinition::IndicatedReading,
+        );
+        assert!(ok.is_ok());
+    }
+
+    #[test]
+    fn gauge_power_and_power_density() {
+        // Closed form: an equal-arm bridge at V puts V/2 across each arm, P = V²/(4R).
+        let g = gauge(350.0)
+            .with_grid(
+                Length::new::<millimeter>(6.0),
+                Length::new::<millimeter>(2.5),
+            )
+            .unwrap();
+        let ex =
+            Excitation::voltage(gaugebook::units::ElectricPotential::new::<volt>(5.0)).unwrap();
+        for a in Arrangement::ALL {
+            let d = GaugeDissipation::in_bridge(&g, a, ex).unwrap();
+            assert_close(d.power().get::<watt>(), 25.0 / 1400.0, 1e-14, 0.0);
+            assert_close(
+                d.power_density().unwrap().get::<watt_per_square_meter>(),
+                25.0 / 1400.0 / 15.0e-6,
+                1e-12,
+                0.0,
+            );
+        }
+        // Round trip: at the maximum excitation the density equals the limit.
+        let lim = PowerDensity::new::<watt_per_square_meter>(3100.0);
+        let v = GaugeDissipation::max_excitation(&g, lim).unwrap();
+        let d =
+            GaugeDissipation::in_bridge(&g, Arrangement::Quarter, Excitation::voltage(v).unwrap())
+                .unwrap();
+        assert_close(
+            d.power_density().unwrap().get::<watt_per_square_meter>(),
+            3100.0,
+            1e-12,
+            0.0,
+        );
+    }
+
+    #[test]
+    fn bad_lead_and_shunt_parameters_are_typed_errors() {
+        assert!(LeadWire::copper(ohms(-0.1)).is_err());
+        assert!(LeadWire::copper(ohms(f64::NAN)).is_err());
+        assert!(
+            SupplyLeads::new(
+                ohms(0.0),
+                SupplyWiring::FourWire,
+                LeadWire::copper(ohms(1.0)).unwrap()
+            )
+            .is_err()
+        );
+        let q = QuarterLeads::new(
+            &gauge(350.0),
+            QuarterWiring::TwoWire,
+            LeadWire::copper(ohms(1.0)).unwrap(),
+        );
+        assert!(q.apparent_strain(dk(f64::NAN)).is_err());
+        // 1 + αΔT ≤ 0 is outside the linear model.
+        assert!(matches!(
+            q.apparent_strain(dk(-300.0)),
+            Err(PhysicsError::OutOfRange { .. })
+        ));
+        for rs in [0.0, -10.0, f64::NAN] {
+            assert!(matches!(
+                ShuntCalibration::simulate(
+                    Arrangement::Quarter,
+                    &gauge(350.0),
+                    0.3,
+                    ArmId::R1,
+                    ohms(rs),
+                    ShuntDefinition::IndicatedReading
+                ),
+                Err(PhysicsError::InvalidParameter { .. })
+            ));
+        }
+        assert!(
+            GaugeDissipation::max_excitation(
+                &gauge(350.0),
+                PowerDensity::new::<watt_per_square_meter>(1000.0)
+            )
+            .is_err()
+        );
+    }
+}
+
+#[test]
+fn offset_trim_from_the_nominal_model_cancels_a_real_offset_to_first_order() {
+    // Common practice: a zero offset r₀ is trimmed from the nominal equal-arm model; the real
+    // bridge (imbalance in R3, unknown to the model) then reads zero up to terms in r₀².
+    let r = ohms(350.0);
+    let real = WheatstoneBridge::equal_arms(r)
+        .unwrap()
+        .with_arm(ArmId::R3, Arm::gauge(r, 0.002).unwrap());
+    let offset = real.output_ratio();
+    let nominal = WheatstoneBridge::equal_arms(r).unwrap();
+    let t = nominal
+        .trim_for_offset(ArmId::R2, TrimKind::Series, offset)
+        .unwrap();
+    let trimmed = real.with_arm(ArmId::R2, real.arm(ArmId::R2).with_trim(t));
+    let residual = trimmed.output_ratio().value();
+    assert!(
+        residual.abs() < 2.0 * offset.value().powi(2) + 1e-18,
+        "residual {residual}"
+    );
+    // Exact when the imbalance is in the model.
+    let t = real.balance_trim(ArmId::R2, TrimKind::Series).unwrap();
+    let exact = real.with_arm(ArmId::R2, real.arm(ArmId::R2).with_trim(t));
+    assert!(exact.output_ratio().value().abs() < 1e-16);
+}

@@ -1,6 +1,22 @@
 //! Integration tests, one binary so the dependency tree links once. One module per area.
 
 mod bridge;
+mod calib;
+mod chain;
 mod common;
 mod data;
 mod gauge;
+#[cfg(feature = "kernel")]
+mod kernel;
+mod layout;
+#[cfg(feature = "plot")]
+mod plot;
+mod rosette;
+#[cfg(feature = "script")]
+mod script;
+mod signal;
+mod spring;
+mod standards;
+mod uncertainty;
+mod units;
+mod weighing;

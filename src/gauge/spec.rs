@@ -22,6 +22,10 @@ use crate::{PhysicsError, Strain, check_finite, check_poisson, check_positive};
 
 /// Poisson's ratio of the gauge-factor calibration beam when none is given: 0.285, the value
 /// ASTM E251 (from memory) and the trade (common practice) quote for the steel calibration beam.
+///
+/// ```
+/// assert_eq!(gaugebook::DEFAULT_CALIBRATION_POISSON, 0.285);
+/// ```
 pub const DEFAULT_CALIBRATION_POISSON: f64 = 0.285;
 
 /// A bonded resistance strain gauge.

@@ -5,7 +5,7 @@
 
 use std::fmt;
 
-/// Exponents of the seven SI base dimensions, in the SI Brochure's order
+/// Exponents of the seven SI base dimensions, in the order of the SI Brochure (from memory)
 /// (9th edition, 2019, §2.3.3): length, mass, time, electric current, thermodynamic temperature,
 /// amount of substance, luminous intensity.
 ///
@@ -20,23 +20,59 @@ pub struct Dimension(pub [i8; 7]);
 
 impl Dimension {
     /// No dimension: ratios, strain, bridge output ratio, angles.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::NONE.to_string(), "1");
+    /// ```
     pub const NONE: Dimension = Dimension([0; 7]);
     /// Length (m).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::LENGTH.to_string(), "m");
+    /// ```
     pub const LENGTH: Dimension = Dimension([1, 0, 0, 0, 0, 0, 0]);
     /// Mass (kg).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::MASS.to_string(), "kg");
+    /// ```
     pub const MASS: Dimension = Dimension([0, 1, 0, 0, 0, 0, 0]);
     /// Time (s).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::TIME.to_string(), "s");
+    /// ```
     pub const TIME: Dimension = Dimension([0, 0, 1, 0, 0, 0, 0]);
     /// Electric current (A).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::CURRENT.to_string(), "A");
+    /// ```
     pub const CURRENT: Dimension = Dimension([0, 0, 0, 1, 0, 0, 0]);
     /// Thermodynamic temperature (K), absolute or as an interval (see [`Kind`](crate::Kind)).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::TEMPERATURE.to_string(), "K");
+    /// ```
     pub const TEMPERATURE: Dimension = Dimension([0, 0, 0, 0, 1, 0, 0]);
     /// Amount of substance (mol).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::AMOUNT.to_string(), "mol");
+    /// ```
     pub const AMOUNT: Dimension = Dimension([0, 0, 0, 0, 0, 1, 0]);
     /// Luminous intensity (cd).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::LUMINOUS.to_string(), "cd");
+    /// ```
     pub const LUMINOUS: Dimension = Dimension([0, 0, 0, 0, 0, 0, 1]);
 
     /// SI base-unit symbols in the same order as the exponents.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Dimension::BASE_SYMBOLS[1], "kg");
+    /// ```
     pub const BASE_SYMBOLS: [&'static str; 7] = ["m", "kg", "s", "A", "K", "mol", "cd"];
 
     /// True when every exponent is zero.
@@ -146,7 +182,7 @@ mod tests {
 
     #[test]
     fn algebra_of_derived_units() {
-        // SI Brochure (9th ed., 2019) Table 4: N = kg·m·s⁻², Pa = N/m², V = W/A, Ω = V/A.
+        // SI Brochure (9th ed., 2019) Table 4 (from memory): N = kg·m·s⁻², Pa = N/m², V = W/A, Ω = V/A.
         let newton = Dimension::MASS * Dimension::LENGTH / Dimension::TIME.powi(2);
         let pascal = newton / Dimension::LENGTH.powi(2);
         assert_eq!(pascal, Dimension([-1, 1, -2, 0, 0, 0, 0]));

@@ -63,4 +63,48 @@ pub enum UnitError {
         /// Why.
         reason: String,
     },
+    /// A unit expression that is not well formed (a dangling operator, a missing parenthesis,
+    /// a number inside the unit).
+    #[error("cannot read unit `{text}` at character {position}: {reason}")]
+    Malformed {
+        /// The whole text being parsed.
+        text: String,
+        /// Character offset of the problem in `text` (0-based).
+        position: usize,
+        /// What is wrong.
+        reason: String,
+    },
+    /// Two temperature readings added (or a reading subtracted from a difference): readings on
+    /// a scale do not add.
+    #[error(
+        "cannot {op} {left} and {right}: both are temperature readings; add a difference (K, Δ°C) to a reading, or subtract two readings"
+    )]
+    TemperatureReadings {
+        /// The operation in words.
+        op: &'static str,
+        /// The left operand as written for a person.
+        left: String,
+        /// The right operand as written for a person.
+        right: String,
+    },
+    /// A temperature difference asked for on a temperature scale: a conversion never turns a
+    /// difference into a reading.
+    #[error(
+        "cannot express the temperature difference {quantity} in {unit}: add it to a reading (20 °C + {quantity}) instead"
+    )]
+    DifferenceAsReading {
+        /// The difference as written for a person.
+        quantity: String,
+        /// The scale asked for.
+        unit: String,
+    },
+    /// A quantity handed to the Rust API as a uom quantity or newtype of another dimension or
+    /// kind.
+    #[error("expected {expected}, found {found}")]
+    WrongQuantity {
+        /// What was expected, in words with its SI unit ("a force (N)").
+        expected: &'static str,
+        /// The quantity found, as written for a person.
+        found: String,
+    },
 }

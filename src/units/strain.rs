@@ -22,19 +22,35 @@ pub struct Strain(f64);
 
 impl Strain {
     /// No strain.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Strain::ZERO.value(), 0.0);
+    /// ```
     pub const ZERO: Strain = Strain(0.0);
 
     /// Strain from its value in m/m.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Strain::new(1e-3).microstrain(), 1000.0);
+    /// ```
     pub const fn new(value: f64) -> Strain {
         Strain(value)
     }
 
     /// Strain from microstrain (µε, 10⁻⁶ m/m).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Strain::from_microstrain(500.0).value(), 5e-4);
+    /// ```
     pub fn from_microstrain(ue: f64) -> Strain {
         Strain(ue * 1e-6)
     }
 
     /// The value in m/m.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Strain::new(2e-4).value(), 2e-4);
+    /// ```
     pub const fn value(self) -> f64 {
         self.0
     }
@@ -72,19 +88,35 @@ pub struct OutputRatio(f64);
 
 impl OutputRatio {
     /// A balanced bridge.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OutputRatio::ZERO.value(), 0.0);
+    /// ```
     pub const ZERO: OutputRatio = OutputRatio(0.0);
 
     /// Output ratio from its value in V/V.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OutputRatio::new(2e-3).mv_per_v(), 2.0);
+    /// ```
     pub const fn new(value: f64) -> OutputRatio {
         OutputRatio(value)
     }
 
     /// Output ratio from mV/V.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OutputRatio::from_mv_per_v(1.5).value(), 1.5e-3);
+    /// ```
     pub fn from_mv_per_v(mv_per_v: f64) -> OutputRatio {
         OutputRatio(mv_per_v * 1e-3)
     }
 
     /// The value in V/V.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OutputRatio::new(1e-3).value(), 1e-3);
+    /// ```
     pub const fn value(self) -> f64 {
         self.0
     }
@@ -175,18 +207,9 @@ macro_rules! linear_newtype_ops {
 linear_newtype_ops!(Strain);
 linear_newtype_ops!(OutputRatio);
 
-/// Shortest round-trip form with at most 6 significant figures, as a person writes it.
+/// Six significant figures, trailing zeros trimmed (the quantity display's rule).
 fn short(v: f64) -> String {
-    if v == 0.0 {
-        return "0".into();
-    }
-    let digits = 6 - 1 - v.abs().log10().floor() as i32;
-    let s = format!("{:.*}", digits.clamp(0, 17) as usize, v);
-    if s.contains('.') {
-        s.trim_end_matches('0').trim_end_matches('.').to_string()
-    } else {
-        s
-    }
+    super::format::number(v)
 }
 
 impl fmt::Display for Strain {

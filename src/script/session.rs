@@ -1,0 +1,309 @@
+//! A scripting session: the state that persists across cells (variables, functions, imports),
+//! with interrupts, panic containment, rich results, completion and inspection. The runner,
+//! the REPL and the Jupyter kernel all drive one of these.
+
+use std::collections::BTreeMap;
+use std::panic::{AssertUnwindSafe, catch_unwind};
+use std::path::PathBuf;
+use std::sync::Arc;
+use std::sync::atomic::{AtomicBool, Ordering};
+
+use rhai::{
+    AST, Dynamic, Engine, EvalAltResult, Module, NativeCallContext, Position, Scope, Shared,
+};
+
+use super::engine::{Parts, build};
+use super::error::{ScriptError, SourceMap};
+use super::lex;
+use super::output::{OutputSink, SinkSlot, mime_of};
+use super::resolver::Resolver;
+use crate::MimeBundle;
+
+/// Where a session looks for modules. Both default to "not set": the stdlib folder is then
+/// found by [`default_stdlib_dir`](super::default_stdlib_dir), and the script folder is the
+/// current directory's files only through absolute paths.
+#[derive(Clone, Debug, Default)]
+pub struct SessionOptions {
+    /// The stdlib folder (`import "table" as t;` finds `table.rhai` there).
+    pub stdlib_dir: Option<PathBuf>,
+    /// The script's own folder, searched before the stdlib.
+    pub script_dir: Option<PathBuf>,
+}
+
+/// The result of a cell: its last expression's value as a MIME bundle, or `None` for `()`.
+#[derive(Clone, Debug, Default, PartialEq)]
+pub struct CellOutput {
+    /// The value's representations (`text/plain` always).
+    pub value: Option<MimeBundle>,
+}
+
+/// Stops the cell that is running in the session it came from; safe to use from any thread.
+#[derive(Clone, Debug)]
+pub struct InterruptHandle(Arc<AtomicBool>);
+
+impl InterruptHandle {
+    /// Asks the running cell to stop; it ends with an `Interrupted` error within microseconds
+    /// of its next script operation, and the session stays usable.
+    pub fn interrupt(&self) {
+        self.0.store(true, Ordering::SeqCst);
+    }
+}
+
+/// Completion candidates for the text between `start` and `end` (character offsets).
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct Completions {
+    /// Start of the text the matches replace (characters, not bytes).
+    pub start: usize,
+    /// End of that text (the cursor).
+    pub end: usize,
+    /// Candidates, sorted, without duplicates.
+    pub matches: Vec<String>,
+}
+
+/// Whether a piece of code can run as it is.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum Completeness {
+    /// It parses.
+    Complete,
+    /// It stops inside a string, comment or block, or in the middle of a statement.
+    Incomplete,
+    /// It has a syntax error that more text cannot fix.
+    Invalid,
+}
+
+/// A persistent scripting session.
+///
+/// ```
+/// use gaugebook::script::{Session, SessionOptions};
+/// let mut s = Session::new(SessionOptions::default())?;
+/// s.eval_cell("let r = 350.0 * ohm; fn twice(x) { 2 * x }", "cell[1]")?;
+/// let out = s.eval_cell("twice(r).to(\"kohm\")", "cell[2]")?;
+/// assert_eq!(out.value.unwrap().get("text/plain"), Some("0.7 kΩ"));
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
+pub struct Session {
+    engine: Engine,
+    scope: Scope<'static>,
+    /// Functions defined by earlier cells.
+    lib: AST,
+    sink: SinkSlot,
+    interrupt: Arc<AtomicBool>,
+    sources: SourceMap,
+    resolver: Arc<Resolver>,
+    /// Modules imported at the top level of earlier cells, by alias.
+    modules: BTreeMap<String, Shared<Module>>,
+    mime_ast: AST,
+    /// Function and property names for completion.
+    names: Names,
+}
+
+#[derive(Default)]
+pub(crate) struct Names {
+    pub(crate) functions: Vec<String>,
+    pub(crate) properties: Vec<String>,
+}
+
+/// The MIME bundle of a cell's value, carried out of the engine.
+#[derive(Clone)]
+struct CellMime(MimeBundle);
+
+impl Session {
+    /// A new session with Gaugebook's engine; output goes to standard output until
+    /// [`Session::set_output`] is called.
+    pub fn new(options: SessionOptions) -> Result<Session, ScriptError> {
+        let Parts {
+            mut engine,
+            sink,
+            interrupt,
+            sources,
+            resolver,
+        } = build(&options);
+        engine.register_fn("__cell_mime", |ctx: NativeCallContext, v: Dynamic| {
+            let mut v = v;
+            CellMime(mime_of(&ctx, &mut v))
+        });
+        let mime_ast = engine
+            .compile("__cell_mime(__cell_value)")
+            .map_err(|e| ScriptError::bare("SyntaxError", e.to_string(), "<session>"))?;
+        let names = super::complete::collect_names(&engine);
+        Ok(Session {
+            engine,
+            scope: Scope::new(),
+            lib: AST::empty(),
+            sink,
+            interrupt,
+            sources,
+            resolver,
+            modules: BTreeMap::new(),
+            mime_ast,
+            names,
+        })
+    }
+
+    /// Sends `print`, `debug` and `display` output to `sink` from now on.
+    pub fn set_output(&mut self, sink: Arc<dyn OutputSink>) {
+        self.sink.set(sink);
+    }
+
+    /// A handle that stops the running cell from another thread.
+    pub fn interrupt_handle(&self) -> InterruptHandle {
+        InterruptHandle(self.interrupt.clone())
+    }
+
+    /// Defines a constant before a script runs (the runner's `--set NAME=VALUE`).
+    pub fn set_constant(&mut self, name: &str, value: Dynamic) {
+        self.scope.push_constant_dynamic(name.to_string(), value);
+    }
+
+    /// The engine, for tools that read its metadata.
+    pub fn engine(&self) -> &Engine {
+        &self.engine
+    }
+
+    /// Runs one cell. Variables, functions and top-level imports persist into later cells; the
+    /// last expression's value is the result. A failed cell keeps the state from before it
+    /// (variables it assigned before failing stay assigned), and its functions are dropped.
+    pub fn eval_cell(&mut self, code: &str, origin: &str) -> Result<CellOutput, ScriptError> {
+        self.interrupt.store(false, Ordering::SeqCst);
+        self.sources.add_text(origin, code);
+        let mut ast = self
+            .engine
+            .compile_with_scope(&self.scope, code)
+            .map_err(|e| self.sources.resolve_parse(&e, origin))?;
+        ast.set_source(origin);
+        let merged = self.lib.merge(&ast);
+
+        let (engine, scope) = (&self.engine, &mut self.scope);
+        let run = catch_unwind(AssertUnwindSafe(|| {
+            engine.eval_ast_with_scope::<Dynamic>(scope, &merged)
+        }));
+        self.interrupt.store(false, Ordering::SeqCst);
+        let value = match run {
+            Err(payload) => return Err(panic_error(payload, origin)),
+            Ok(Err(e)) => match *e {
+                EvalAltResult::Exit(v, _) => v,
+                e => return Err(self.sources.resolve(&e, origin)),
+            },
+            Ok(Ok(v)) => v,
+        };
+
+        for f in ast.iter_functions() {
+            self.sources.add_fn(f.name, origin);
+        }
+        self.lib = merged.clone_functions_only();
+        self.keep_imports(code, origin);
+        self.names
+            .functions
+            .extend(ast.iter_functions().map(|f| f.name.to_string()));
+        Ok(CellOutput {
+            value: self.bundle(value, origin)?,
+        })
+    }
+
+    /// Makes the cell's top-level imports visible to later cells (as static modules).
+    fn keep_imports(&mut self, code: &str, origin: &str) {
+        for (path, alias) in lex::top_level_imports(code) {
+            // The import already ran in the cell, so this is a cache hit.
+            if let Ok(m) = rhai::ModuleResolver::resolve(
+                &*self.resolver,
+                &self.engine,
+                Some(origin),
+                &path,
+                Position::NONE,
+            ) {
+                self.engine
+                    .register_static_module(alias.as_str(), m.clone());
+                self.modules.insert(alias, m);
+            }
+        }
+    }
+
+    fn bundle(&self, value: Dynamic, origin: &str) -> Result<Option<MimeBundle>, ScriptError> {
+        if value.is_unit() {
+            return Ok(None);
+        }
+        let mut scope = Scope::new();
+        scope.push_dynamic("__cell_value", value);
+        let run = catch_unwind(AssertUnwindSafe(|| {
+            self.engine
+                .eval_ast_with_scope::<CellMime>(&mut scope, &self.mime_ast)
+        }));
+        match run {
+            Ok(Ok(m)) => Ok(Some(m.0)),
+            Ok(Err(e)) => Err(self.sources.resolve(&e, origin)),
+            Err(p) => Err(panic_error(p, origin)),
+        }
+    }
+
+    /// Completion candidates at `cursor` (a character offset into `code`): functions, methods
+    /// and properties after `.`, variables, unit constants, members after `module::`, unit
+    /// symbols inside the string of `q("…")`, `.to("…")`, `.value("…")`, and module names inside
+    /// `import "…"`.
+    pub fn completions(&self, code: &str, cursor: usize) -> Completions {
+        super::complete::complete(self, code, cursor)
+    }
+
+    /// The reference text of the function, variable or module under (or just before) the
+    /// cursor (a character offset), as markdown.
+    pub fn inspect(&self, code: &str, cursor: usize) -> Option<String> {
+        super::complete::inspect(self, code, cursor)
+    }
+
+    /// Whether `code` can run as it is, by the Rhai parser.
+    ///
+    /// ```
+    /// use gaugebook::script::{Completeness, Session};
+    /// assert_eq!(Session::is_complete("let x = 1;"), Completeness::Complete);
+    /// assert_eq!(Session::is_complete("fn f() {"), Completeness::Incomplete);
+    /// assert_eq!(Session::is_complete("let s = \"abc"), Completeness::Incomplete);
+    /// assert_eq!(Session::is_complete("let = ;"), Completeness::Invalid);
+    /// ```
+    pub fn is_complete(code: &str) -> Completeness {
+        if code.trim().is_empty() {
+            return Completeness::Complete;
+        }
+        if lex::unfinished(code) {
+            return Completeness::Incomplete;
+        }
+        match Engine::new_raw().compile(code) {
+            Ok(_) => Completeness::Complete,
+            Err(e) if matches!(e.err_type(), rhai::ParseErrorType::UnexpectedEOF) => {
+                Completeness::Incomplete
+            }
+            Err(_) => Completeness::Invalid,
+        }
+    }
+
+    pub(crate) fn scope(&self) -> &Scope<'static> {
+        &self.scope
+    }
+
+    pub(crate) fn lib(&self) -> &AST {
+        &self.lib
+    }
+
+    pub(crate) fn modules(&self) -> &BTreeMap<String, Shared<Module>> {
+        &self.modules
+    }
+
+    pub(crate) fn names(&self) -> &Names {
+        &self.names
+    }
+
+    pub(crate) fn resolver(&self) -> &Resolver {
+        &self.resolver
+    }
+}
+
+fn panic_error(payload: Box<dyn std::any::Any + Send>, origin: &str) -> ScriptError {
+    let what = payload
+        .downcast_ref::<&str>()
+        .map(|s| s.to_string())
+        .or_else(|| payload.downcast_ref::<String>().cloned())
+        .unwrap_or_else(|| "unknown panic".to_string());
+    ScriptError::bare(
+        "Panic",
+        format!("internal error in a native function (please report it): {what}"),
+        origin,
+    )
+}

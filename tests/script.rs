@@ -1,0 +1,237 @@
+//! Script-level tests of the Rhai surface: quantities, columns, sessions, errors with positions,
+//! and every ```rhai example in the registered reference.
+
+use std::sync::Arc;
+
+use gaugebook::script::{
+    CaptureSink, Completeness, OutputEvent, ScriptError, Session, SessionOptions, build_engine,
+    reference_docs,
+};
+
+fn session() -> Session {
+    Session::new(SessionOptions::default()).expect("session")
+}
+
+fn text(s: &mut Session, code: &str) -> String {
+    match s.eval_cell(code, "test") {
+        Ok(out) => out
+            .value
+            .map(|b| b.get("text/plain").unwrap_or("").to_string())
+            .unwrap_or_default(),
+        Err(e) => panic!("{}", e.render()),
+    }
+}
+
+fn err(s: &mut Session, code: &str) -> ScriptError {
+    match s.eval_cell(code, "cell[7]") {
+        Ok(out) => panic!("expected an error, got {:?}", out.value),
+        Err(e) => e,
+    }
+}
+
+/// Runs every ```rhai example of every registered function, each in a fresh session, so a
+/// binding added by any domain file is checked without listing it here.
+#[test]
+fn script_reference_examples() {
+    let docs = reference_docs(&build_engine(&Default::default()));
+    assert!(docs.len() > 30, "only {} documented functions", docs.len());
+    let mut failures = Vec::new();
+    let mut ran = 0;
+    for d in &docs {
+        let examples = d.examples();
+        if examples.is_empty() {
+            failures.push(format!("{}: no ```rhai example", d.signature));
+        }
+        for (i, code) in examples.iter().enumerate() {
+            let mut s = session();
+            s.set_output(Arc::new(CaptureSink::default()));
+            ran += 1;
+            if let Err(e) = s.eval_cell(code, &format!("{} example {}", d.name, i + 1)) {
+                failures.push(format!("{}\n{}", d.signature, e.render()));
+            }
+        }
+    }
+    assert!(
+        failures.is_empty(),
+        "{} of {ran} examples failed:\n{}",
+        failures.len(),
+        failures.join("\n")
+    );
+}
+
+#[test]
+fn quantities_print_as_written() {
+    let mut s = session();
+    assert_eq!(text(&mut s, r#"q("350 ohm")"#), "350 Ω");
+    assert_eq!(text(&mut s, r#"350.0 * ohm"#), "350 Ω");
+    assert_eq!(text(&mut s, r#"q(2, "kN").to("N")"#), "2000 N");
+    assert_eq!(text(&mut s, r#"q("2 kN").unit"#), "kN");
+}
+
+#[test]
+fn unit_mismatch_names_both_sides_at_the_operator() {
+    let mut s = session();
+    let e = err(
+        &mut s,
+        "let v = 5.0 * V;\nlet r = q(\"350 ohm\");\nlet x = v + r;",
+    );
+    assert_eq!(e.kind, "UnitError");
+    assert_eq!(e.message, "cannot add 5 V and 350 Ω");
+    assert_eq!((e.origin.as_str(), e.line, e.column), ("cell[7]", 3, 11));
+    assert_eq!(e.source_line.as_deref(), Some("let x = v + r;"));
+    let r = e.render();
+    assert!(
+        r.starts_with(
+            "cell[7]:3:11: cannot add 5 V and 350 Ω\n3 | let x = v + r;\n  |           ^ UnitError"
+        ),
+        "{r}"
+    );
+}
+
+#[test]
+fn unit_errors_are_catchable() {
+    let mut s = session();
+    let out = text(
+        &mut s,
+        r#"let m = ""; try { q("1 V") - q("1 N") } catch (e) { m = e.kind + ": " + e.message } m"#,
+    );
+    assert_eq!(out, "UnitError: cannot subtract 1 V and 1 N");
+}
+
+#[test]
+fn comparing_with_a_bare_number_is_an_error() {
+    let mut s = session();
+    let e = err(&mut s, "let f = q(\"2 kN\");\nif f > 1000.0 { 1 }");
+    assert_eq!(e.kind, "UnitError");
+    assert!(
+        e.message.contains("2 kN") && e.message.contains("1000"),
+        "{}",
+        e.message
+    );
+    assert_eq!((e.line, e.column), (2, 6));
+    // `==` across types would silently be false in plain Rhai.
+    let e = err(&mut s, "q(\"1 V\") == 1");
+    assert_eq!(e.kind, "UnitError");
+    // Plain dimensionless quantities do compare with numbers.
+    assert_eq!(text(&mut s, "q(\"2 kN\") / q(\"1 kN\") > 1.5"), "true");
+}
+
+#[test]
+fn unknown_unit_error_points_at_the_call() {
+    let mut s = session();
+    let e = err(&mut s, "let a = 1;\nlet b = q(\"5 furlongs\");");
+    assert_eq!(e.kind, "UnitError");
+    assert!(e.message.contains("furlongs"), "{}", e.message);
+    assert_eq!((e.line, e.column), (2, 9));
+}
+
+#[test]
+fn wrong_argument_type_is_reported_with_position() {
+    let mut s = session();
+    let e = err(&mut s, "let x = 1;\n  q(true)");
+    assert_eq!(e.kind, "FunctionNotFound");
+    assert!(e.message.contains("q (bool)"), "{}", e.message);
+    assert_eq!((e.line, e.column), (2, 3));
+}
+
+#[test]
+fn bad_module_name_is_reported() {
+    let mut s = session();
+    let e = err(&mut s, "import \"no_such_module\" as m;");
+    assert_eq!(e.kind, "ModuleNotFound");
+    assert!(e.message.contains("no_such_module"), "{}", e.message);
+    // Rhai places the position on the path literal.
+    assert_eq!((e.line, e.column), (1, 8));
+}
+
+#[test]
+fn state_persists_and_failed_cells_keep_it() {
+    let mut s = session();
+    text(&mut s, "let r = 350.0 * ohm; fn double(x) { 2.0 * x }");
+    let _ = err(&mut s, "let r2 = r + 1.0 * V; fn nope() { 1 }");
+    assert_eq!(text(&mut s, "double(r)"), "700 Ω");
+    let e = err(&mut s, "nope()");
+    assert_eq!(e.kind, "FunctionNotFound");
+}
+
+#[test]
+fn errors_inside_functions_of_earlier_cells_point_there() {
+    let mut s = session();
+    s.eval_cell("fn bad(x) {\n  x + 1.0 * V\n}", "cell[1]")
+        .unwrap();
+    let e = s
+        .eval_cell("let a = 1.0 * ohm;\nbad(a)", "cell[2]")
+        .unwrap_err();
+    assert_eq!(
+        (e.origin.as_str(), e.line, e.column),
+        ("cell[1]", 2, 5),
+        "{}",
+        e.render()
+    );
+    assert_eq!(e.trace.len(), 1);
+    assert_eq!(
+        (e.trace[0].origin.as_str(), e.trace[0].line),
+        ("cell[2]", 2)
+    );
+}
+
+#[test]
+fn print_and_display_reach_the_sink() {
+    let mut s = session();
+    let sink = Arc::new(CaptureSink::default());
+    s.set_output(sink.clone());
+    s.eval_cell(
+        "print(q(\"2 mV/V\")); debug(1); display(column([1.0, 2.0], \"V\"), \"c\")",
+        "c",
+    )
+    .unwrap();
+    assert_eq!(sink.stdout_text(), "2 mV/V\n");
+    assert!(sink.stderr_text().contains('1'));
+    let shown = sink.events().into_iter().find_map(|e| match e {
+        OutputEvent::Display {
+            bundle, display_id, ..
+        } => Some((bundle, display_id)),
+        _ => None,
+    });
+    let (bundle, id) = shown.expect("a display event");
+    assert_eq!(id.as_deref(), Some("c"));
+    assert!(
+        bundle
+            .get("text/html")
+            .is_some_and(|h| h.contains("<table"))
+    );
+}
+
+#[test]
+fn interrupt_stops_a_runaway_cell_and_keeps_the_session() {
+    let mut s = session();
+    text(&mut s, "let kept = 42;");
+    let h = s.interrupt_handle();
+    let t = std::thread::spawn(move || {
+        std::thread::sleep(std::time::Duration::from_millis(200));
+        h.interrupt();
+    });
+    let start = std::time::Instant::now();
+    let e = err(&mut s, "let i = 0; loop { i += 1; }");
+    t.join().unwrap();
+    assert_eq!(e.kind, "Interrupted");
+    // Generous bound: the hook fires on every operation; this only guards against a hang.
+    assert!(start.elapsed().as_secs() < 5);
+    assert_eq!(text(&mut s, "kept"), "42");
+}
+
+#[test]
+fn is_complete_follows_the_parser() {
+    assert_eq!(Session::is_complete("let x = 1;"), Completeness::Complete);
+    assert_eq!(Session::is_complete("fn f() {"), Completeness::Incomplete);
+    assert_eq!(Session::is_complete("/* open"), Completeness::Incomplete);
+    assert_eq!(
+        Session::is_complete("let s = \"abc"),
+        Completeness::Incomplete
+    );
+    assert_eq!(
+        Session::is_complete("let x = (1 +"),
+        Completeness::Incomplete
+    );
+    assert_eq!(Session::is_complete("let = ;"), Completeness::Invalid);
+}
