@@ -28,7 +28,12 @@ use std::process::Command;
 use std::sync::mpsc::sync_channel;
 use std::time::Instant;
 
-use gaugebook::{Arrangement, ColumnWriter, ExportOptions, LogFormat, LogOptions, open_log};
+use gaugebook::units::Frequency;
+use gaugebook::{
+    Arrangement, ColumnWriter, ExportOptions, FilterBand, LogFormat, LogOptions, SosFilter,
+    StreamingFilter, open_log,
+};
+use uom::si::frequency::hertz;
 
 type Res<T> = Result<T, Box<dyn std::error::Error>>;
 
@@ -56,52 +61,13 @@ fn opt<'a>(args: &'a [String], name: &str) -> Option<&'a str> {
 // ---------------------------------------------------------------------------------------------
 // The filter step
 
-/// Second-order sections `[b0, b1, b2, 1, a1, a2]`.
-type Sos = Vec<[f64; 6]>;
-
-/// Butterworth low-pass design as `scipy.signal.butter(order, cutoff, fs=fs, output="sos")`.
-///
-/// INTERIM: until the signal module lands on main, only order 2 is designed here, by the
-/// bilinear transform with prewarping (K = tan(π·fc/fs); b = K²/(1 + √2K + K²)·[1, 2, 1],
-/// a = [1, 2(K² − 1), 1 − √2K + K²]/(1 + √2K + K²); Oppenheim & Schafer, *Discrete-Time Signal
-/// Processing*, 3rd ed., §7.1.3, from memory), which is what scipy's butter computes for order 2.
-fn butterworth_lowpass_design(order: usize, cutoff_hz: f64, fs: f64) -> Res<Sos> {
-    if order != 2 {
-        return Err(format!("the interim filter design supports order 2 only, found {order}").into());
-    }
-    let k = (std::f64::consts::PI * cutoff_hz / fs).tan();
-    let s2 = std::f64::consts::SQRT_2;
-    let norm = 1.0 / (1.0 + s2 * k + k * k);
-    let b0 = k * k * norm;
-    Ok(vec![[b0, 2.0 * b0, b0, 1.0, 2.0 * (k * k - 1.0) * norm, (1.0 - s2 * k + k * k) * norm]])
-}
-
-/// One-way filtering as `scipy.signal.sosfilt` (transposed direct form II per section), state
-/// carried across calls so blocks filter as one record.
-struct ForwardFilter {
-    sos: Sos,
-    z: Vec<[f64; 2]>,
-}
-
-impl ForwardFilter {
-    fn new(sos: &Sos) -> ForwardFilter {
-        ForwardFilter { sos: sos.clone(), z: vec![[0.0; 2]; sos.len()] }
-    }
-
-    fn run_in_place(&mut self, x: &mut [f64]) {
-        for (s, z) in self.sos.iter().zip(self.z.iter_mut()) {
-            let [b0, b1, b2, _, a1, a2] = *s;
-            let (mut z0, mut z1) = (z[0], z[1]);
-            for v in x.iter_mut() {
-                let xi = *v;
-                let y = b0 * xi + z0;
-                z0 = b1 * xi - a1 * y + z1;
-                z1 = b2 * xi - a2 * y;
-                *v = y;
-            }
-            *z = [z0, z1];
-        }
-    }
+/// The peer's filter: `scipy.signal.butter(order, cutoff, fs=fs, output="sos")` applied one way
+/// from a zero state with `sosfilt`; here the signal module's Butterworth design (same sections
+/// as scipy 1.17.1) and its streaming filter, whose state carries across blocks.
+fn butterworth_lowpass_forward(order: usize, cutoff_hz: f64, fs: f64) -> Res<StreamingFilter> {
+    let hz = Frequency::new::<hertz>;
+    let f = SosFilter::butterworth(order, FilterBand::LowPass, hz(cutoff_hz), hz(fs))?;
+    Ok(StreamingFilter::new(f))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -165,7 +131,7 @@ fn pipeline(args: &[String]) -> Res<()> {
     let mut load: Vec<f64> = Vec::new();
     let mut zero: Option<[f64; 4]> = None;
     let mut fs = f64::NAN;
-    let mut filters: Vec<ForwardFilter> = Vec::new();
+    let mut filters: Vec<StreamingFilter> = Vec::new();
     let mut pending: Vec<gaugebook::LogChunk> = Vec::new();
     let mut rows = 0usize;
 
@@ -210,8 +176,7 @@ fn pipeline(args: &[String]) -> Res<()> {
                 let steps = &time[..time.len().min(10_000)];
                 let step = gaugebook::median_step(steps).ok_or("too few samples for the rate")?;
                 fs = ((1.0 / step) * 1000.0).round() / 1000.0;
-                let sos = butterworth_lowpass_design(order, cutoff, fs)?;
-                filters = (0..5).map(|_| ForwardFilter::new(&sos)).collect();
+                filters = (0..5).map(|_| butterworth_lowpass_forward(order, cutoff, fs)).collect::<Res<_>>()?;
                 let mut z = [0.0; 4];
                 for k in 0..4 {
                     let m = zero_samples.min(ch[k].len());
@@ -227,7 +192,7 @@ fn pipeline(args: &[String]) -> Res<()> {
             // c) one-way Butterworth.
             let t1 = Instant::now();
             for (v, f) in ch.iter_mut().zip(filters.iter_mut()) {
-                f.run_in_place(v);
+                f.process(v)?;
             }
             tm.filter += t1.elapsed().as_secs_f64();
             let t2 = Instant::now();

@@ -367,9 +367,9 @@ fn csv_export_matches_c_printf_and_reads_back() {
     let p = d.path().join("o.csv");
     let x = [0.03125, -0.00004, 1234.56785, -7.0];
     write_columns(&p, &[("x", &x)], &ExportOptions { decimals: Some(4), ..Default::default() }).unwrap();
-    // printf("%.4f") of each value (glibc; Python "%.4f" % x gives the same): 0.0312 (exact tie,
-    // half to even), -0.0000, 1234.5679 (1234.56785 is stored just above the tie), -7.0000.
-    assert_eq!(std::fs::read_to_string(&p).unwrap(), "x\n0.0312\n-0.0000\n1234.5679\n-7.0000\n");
+    // Python 3.11.7 "%.4f" % x (C printf rules): 0.0312 (an exact tie, half to even), -0.0000,
+    // 1234.5678 (1234.56785 is stored as 1234.5678499999999...), -7.0000.
+    assert_eq!(std::fs::read_to_string(&p).unwrap(), "x\n0.0312\n-0.0000\n1234.5678\n-7.0000\n");
 }
 
 #[test]

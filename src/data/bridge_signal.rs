@@ -3,11 +3,10 @@
 //! correction. Pure functions on slices; the inverse itself is the bridge module's.
 
 use uom::si::electric_potential::volt;
-use uom::si::electrical_resistance::ohm;
 
 use super::DataError;
-use crate::units::{ElectricPotential, ElectricalResistance};
-use crate::{Arrangement, OutputRatio, PhysicsError, check_finite, check_positive};
+use crate::units::ElectricPotential;
+use crate::{Arrangement, OutputRatio, PhysicsError, QuarterLeads, SupplyLeads, check_positive};
 
 /// The scale of an analogue-to-digital converter reading a bridge: `full_scale_counts` counts
 /// correspond to the output ratio `full_scale`.
@@ -100,76 +99,60 @@ pub fn ratio_to_strain(
     Ok(ratios.iter().map(|&r| inv.apply_or_nan(r)).collect())
 }
 
-/// How the gauge or bridge is connected to the amplifier.
+/// The lead wires of a channel, as the bridge module models them: a quarter bridge's two- or
+/// three-wire connection, or a full bridge's four- or six-wire supply.
 ///
 /// ```
-/// use gaugebook::Wiring;
-/// assert_ne!(Wiring::TwoWire, Wiring::ThreeWire);
-/// ```
-#[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
-pub enum Wiring {
-    /// Quarter bridge, two leads in series with the gauge.
-    TwoWire,
-    /// Quarter bridge, three leads: one in the gauge arm, one in the adjacent arm, one in the
-    /// output; temperature changes of the leads cancel.
-    ThreeWire,
-    /// A complete bridge on four leads: the excitation leads drop part of the excitation.
-    FourWire,
-    /// A complete bridge with sense leads: the excitation is measured at the bridge.
-    SixWire,
-}
-
-/// The factor that multiplies strain indicated without regard to the leads to give the strain,
-/// for leads of resistance `lead` each and gauges (or bridge input) of `gauge`:
-/// two-wire 1 + 2R_L/R_g, three-wire 1 + R_L/R_g, four-wire 1 + 2R_L/R_b, six-wire 1.
-/// Dally & Riley, *Experimental Stress Analysis*, 4th ed., §6 on lead wires (from memory); each
-/// is the ratio of the arm (or bridge) resistance with its leads to the resistance without.
-///
-/// ```
-/// use gaugebook::{Wiring, lead_wire_factor};
+/// use gaugebook::{Gauge, LeadWire, LeadWires, QuarterLeads, QuarterWiring};
 /// use gaugebook::units::ElectricalResistance;
 /// use uom::si::electrical_resistance::ohm;
-/// let r = ElectricalResistance::new::<ohm>;
-/// assert_eq!(lead_wire_factor(Wiring::TwoWire, r(3.5), r(350.0))?, 1.02);
-/// assert_eq!(lead_wire_factor(Wiring::SixWire, r(3.5), r(350.0))?, 1.0);
+/// let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+/// let q = QuarterLeads::new(&g, QuarterWiring::TwoWire, LeadWire::copper(ElectricalResistance::new::<ohm>(3.5))?);
+/// // Two leads of 3.5 Ω in series with 350 Ω: indicated strain is 350/357 of the true strain.
+/// assert!((LeadWires::Quarter(q).strain_factor() - 357.0 / 350.0).abs() < 1e-15);
 /// # Ok::<(), gaugebook::PhysicsError>(())
 /// ```
-pub fn lead_wire_factor(
-    wiring: Wiring,
-    lead: ElectricalResistance,
-    gauge: ElectricalResistance,
-) -> Result<f64, PhysicsError> {
-    let rl = lead.get::<ohm>();
-    let rg = gauge.get::<ohm>();
-    check_finite("lead resistance", rl, " Ω")?;
-    if rl < 0.0 {
-        return Err(PhysicsError::invalid("lead resistance", format!("{rl} Ω"), "a resistance of 0 Ω or more"));
-    }
-    check_positive("gauge resistance", rg, " Ω")?;
-    Ok(match wiring {
-        Wiring::TwoWire | Wiring::FourWire => 1.0 + 2.0 * rl / rg,
-        Wiring::ThreeWire => 1.0 + rl / rg,
-        Wiring::SixWire => 1.0,
-    })
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub enum LeadWires {
+    /// A quarter bridge wired through leads.
+    Quarter(QuarterLeads),
+    /// A complete bridge fed through supply leads.
+    Supply(SupplyLeads),
 }
 
-/// Multiplies a strain column by a lead-wire factor in place.
+impl LeadWires {
+    /// The factor that turns strain indicated without regard to the leads into strain: the
+    /// inverse of the bridge module's sensitivity factor (1 / (1 − desensitisation)).
+    pub fn strain_factor(&self) -> f64 {
+        match self {
+            LeadWires::Quarter(q) => 1.0 / q.sensitivity_factor(),
+            LeadWires::Supply(s) => 1.0 / (1.0 - s.desensitization()),
+        }
+    }
+}
+
+/// Corrects a strain column for lead-wire desensitisation in place.
 ///
 /// ```
-/// use gaugebook::correct_lead_wires;
-/// let mut e = vec![1.0e-3, 2.0e-3];
-/// correct_lead_wires(&mut e, 1.02);
-/// assert_eq!(e, vec![1.02e-3, 2.04e-3]);
+/// use gaugebook::{LeadWire, LeadWires, SupplyLeads, SupplyWiring, correct_lead_wires};
+/// use gaugebook::units::ElectricalResistance;
+/// use uom::si::electrical_resistance::ohm;
+/// let lead = LeadWire::copper(ElectricalResistance::new::<ohm>(1.0))?;
+/// let s = SupplyLeads::new(ElectricalResistance::new::<ohm>(350.0), SupplyWiring::FourWire, lead)?;
+/// let mut e = vec![1.0e-3];
+/// correct_lead_wires(&mut e, &LeadWires::Supply(s));
+/// assert!((e[0] - 1.0e-3 * 352.0 / 350.0).abs() < 1e-15);
+/// # Ok::<(), gaugebook::PhysicsError>(())
 /// ```
-pub fn correct_lead_wires(strain: &mut [f64], factor: f64) {
-    strain.iter_mut().for_each(|e| *e *= factor);
+pub fn correct_lead_wires(strain: &mut [f64], leads: &LeadWires) {
+    let f = leads.strain_factor();
+    strain.iter_mut().for_each(|e| *e *= f);
 }
 
 /// The whole chain for a channel: its values (counts must already be ratios) in its unit to V/V,
 /// the exact inverse of `meta.arrangement` with `meta.gauge_factor` and `meta.poisson`
 /// (0.3 when absent: steel, common practice; only Poisson arrangements use it), then the
-/// lead-wire factor when `meta.wiring`, `meta.lead_resistance` and `meta.gauge_resistance` are
-/// all given. Returns a strain channel in µε.
+/// lead-wire correction when `meta.leads` is given. Returns a strain channel in µε.
 ///
 /// ```
 /// use gaugebook::{Arrangement, Channel, ChannelMeta, Unit, channel_to_strain};
@@ -202,10 +185,7 @@ pub fn channel_to_strain(channel: &super::Channel) -> Result<super::Channel, Dat
     let nu = m.poisson.unwrap_or(0.3);
     let inv = arrangement.inverse(gf, nu)?;
     let f = channel.unit.factor();
-    let lead = match (m.wiring, m.lead_resistance, m.gauge_resistance) {
-        (Some(w), Some(rl), Some(rg)) => lead_wire_factor(w, rl, rg)?,
-        _ => 1.0,
-    };
+    let lead = m.leads.as_ref().map_or(1.0, LeadWires::strain_factor);
     // µε per m/m: 10⁶ (SI prefix micro).
     let scale = lead * 1e6;
     let values = channel.values.iter().map(|&v| inv.apply_or_nan(v * f) * scale).collect();
@@ -253,16 +233,19 @@ mod tests {
     }
 
     #[test]
-    fn two_wire_factor_is_the_arm_resistance_ratio() {
+    fn two_wire_correction_undoes_the_arm_resistance_ratio() {
         // A gauge arm of R_g + 2 R_L changes by R_g·F·ε: the indicated relative change is
-        // F·ε·R_g/(R_g + 2R_L); the factor undoes exactly that (closed form).
+        // F·ε·R_g/(R_g + 2R_L); the correction undoes exactly that (closed form).
+        use crate::units::ElectricalResistance;
+        use crate::{Gauge, LeadWire, QuarterWiring};
+        use uom::si::electrical_resistance::ohm;
         let r = ElectricalResistance::new::<ohm>;
-        let (rg, rl, gf, e) = (120.0, 0.8, 2.0, 1.0e-3);
-        let indicated = gf * e * rg / (rg + 2.0 * rl) / gf;
-        let f = lead_wire_factor(Wiring::TwoWire, r(rl), r(rg)).unwrap();
-        assert!((indicated * f - e).abs() < 1e-18);
-        assert!(lead_wire_factor(Wiring::ThreeWire, r(-1.0), r(rg)).is_err());
-        assert!(lead_wire_factor(Wiring::ThreeWire, r(1.0), r(0.0)).is_err());
+        let (rg, rl, e) = (120.0, 0.8, 1.0e-3);
+        let g = Gauge::new(r(rg), 2.0).unwrap();
+        let q = QuarterLeads::new(&g, QuarterWiring::TwoWire, LeadWire::copper(r(rl)).unwrap());
+        let mut indicated = vec![e * rg / (rg + 2.0 * rl)];
+        correct_lead_wires(&mut indicated, &LeadWires::Quarter(q));
+        assert!((indicated[0] - e).abs() < 1e-18);
     }
 
     #[test]

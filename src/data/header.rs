@@ -71,6 +71,25 @@ impl HeaderUnit {
     }
 }
 
+/// The name part of a header whatever its unit part holds (`load` for `load [kilobananas]`).
+pub(crate) fn name_part(header: &str) -> String {
+    let h = header.trim();
+    for (open, close) in [('[', ']'), ('(', ')')] {
+        if let Some(body) = h.strip_suffix(close)
+            && let Some(at) = body.rfind(open)
+            && !body[..at].trim().is_empty()
+        {
+            return body[..at].trim().to_string();
+        }
+    }
+    if let Some((name, _)) = h.rsplit_once(" / ")
+        && !name.trim().is_empty()
+    {
+        return name.trim().to_string();
+    }
+    h.to_string()
+}
+
 /// Short spellings seen in log headers, where `/`, `°` and `·` cannot be written (common practice).
 fn spell_out(suffix: &str) -> String {
     match suffix {

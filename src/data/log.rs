@@ -3,7 +3,7 @@
 
 use std::path::PathBuf;
 
-use super::{Calibration, DataError, Gap, Wiring};
+use super::{Calibration, DataError, Gap, LeadWires};
 use crate::units::{ElectricPotential, ElectricalResistance};
 use crate::{Arrangement, Unit};
 
@@ -25,10 +25,8 @@ pub struct ChannelMeta {
     pub excitation: Option<ElectricPotential>,
     /// Nominal gauge resistance.
     pub gauge_resistance: Option<ElectricalResistance>,
-    /// Resistance of one lead wire (for the lead-wire correction).
-    pub lead_resistance: Option<ElectricalResistance>,
-    /// How the gauge or bridge is wired to the amplifier.
-    pub wiring: Option<Wiring>,
+    /// The lead wires (for the lead-wire correction).
+    pub leads: Option<LeadWires>,
     /// The bridge arrangement.
     pub arrangement: Option<Arrangement>,
     /// Poisson's ratio of the specimen (for the Poisson arrangements).

@@ -22,7 +22,7 @@ mod timebase;
 mod zero;
 
 pub use bridge_signal::{
-    AdcScale, Wiring, channel_to_strain, correct_lead_wires, lead_wire_factor, ratio_to_strain,
+    AdcScale, LeadWires, channel_to_strain, correct_lead_wires, ratio_to_strain,
 };
 pub use calibration::{Calibration, CalibrationModel};
 pub use error::DataError;

@@ -75,7 +75,7 @@ pub(crate) fn make_plan(path: &Path, headers: Vec<String>, opts: &LogOptions) ->
         .iter()
         .map(|h| match HeaderUnit::parse(h) {
             Ok(hu) => (hu.name, Ok(hu.unit)),
-            Err(e) => (h.trim().to_string(), Err(e)),
+            Err(e) => (super::header::name_part(h), Err(e)),
         })
         .collect();
     let available = || headers.join(", ");

@@ -389,7 +389,7 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
     // Read until the header and the first data line are in hand.
     let mut buf = Vec::new();
     loop {
-        let got = read_some(&mut file, &mut buf, 64 << 10, path)?;
+        let got = read_some(&mut file, &mut buf, (64 << 10).min(opts.block_bytes.max(4096)), path)?;
         // Complete (newline-ended) lines that are not blank: the header and a first data row.
         let complete = buf.split(|&b| b == b'\n').rev().skip(1).filter(|l| !is_blank(l)).count();
         if got == 0 || complete >= 2 {
@@ -513,6 +513,26 @@ fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
     }
 }
 
+/// The block without blank lines and the file row of each remaining line, or `None`s when the
+/// block has no blank line (the common case: one pass, no copy).
+fn drop_blank_lines(block: &[u8], first_row: usize) -> (Option<Vec<u8>>, Option<Vec<usize>>) {
+    let body = block.strip_suffix(b"\n").unwrap_or(block);
+    let blank = |l: &[u8]| l.first().is_none_or(|b| b.is_ascii_whitespace()) && is_blank(l);
+    if !body.split(|&b| b == b'\n').any(blank) {
+        return (None, None);
+    }
+    let mut out = Vec::with_capacity(block.len());
+    let mut rows = Vec::new();
+    for (k, line) in body.split(|&b| b == b'\n').enumerate() {
+        if !blank(line) {
+            out.extend_from_slice(line);
+            out.push(b'\n');
+            rows.push(first_row + k);
+        }
+    }
+    (Some(out), Some(rows))
+}
+
 fn count_lines(block: &[u8]) -> usize {
     let n = block.iter().filter(|&&b| b == b'\n').count();
     if block.last().is_some_and(|&b| b != b'\n') { n + 1 } else { n }
@@ -552,7 +572,11 @@ fn parse_block(
         .with_projection(Some(Arc::new(projection)))
         .with_raise_if_empty(false)
         .map_parse_options(|p| p.with_separator(s.sep));
-    let df = options.into_reader_with_file_handle(Cursor::new(block)).finish();
+    // Policy: blank lines are not rows (polars would read them as rows of nulls). A block with
+    // any is parsed from a copy without them, and the file row of each sample is kept.
+    let (compact, rows) = drop_blank_lines(block, first_row);
+    let text: &[u8] = compact.as_deref().unwrap_or(block);
+    let df = options.into_reader_with_file_handle(Cursor::new(text)).finish();
     let df = match df {
         Ok(df) => df,
         Err(e) => {
@@ -566,19 +590,6 @@ fn parse_block(
         }
     };
     let height = df.height();
-    // Blank lines are not rows; when there are some, record where each row really is.
-    let rows: Option<Vec<usize>> = if height == lines {
-        None
-    } else {
-        let r: Vec<usize> = block
-            .split(|&b| b == b'\n')
-            .enumerate()
-            .filter(|(_, l)| !is_blank(l))
-            .map(|(i, _)| first_row + i)
-            .take(height)
-            .collect();
-        Some(r)
-    };
     let row_of = |i: usize| rows.as_ref().map_or(first_row + i, |r| r[i]);
     let engine = |e: PolarsError| DataError::Engine { path: path.clone(), reason: e.to_string() };
 
