@@ -30,7 +30,10 @@ fn err(path: &Path, opts: &LogOptions) -> DataError {
 /// Every error message names the file.
 fn names_file(e: &DataError, path: &Path) {
     let name = path.file_name().unwrap().to_str().unwrap();
-    assert!(e.to_string().contains(name), "message without the file name: {e}");
+    assert!(
+        e.to_string().contains(name),
+        "message without the file name: {e}"
+    );
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -39,9 +42,24 @@ fn names_file(e: &DataError, path: &Path) {
 #[test]
 fn ragged_row_with_too_many_fields() {
     let d = tempfile::tempdir().unwrap();
-    let p = write(d.path(), "ragged.csv", "time,a,b\n0,1,2\n1,1,2\n2,1,2,9\n3,1,2\n");
+    let p = write(
+        d.path(),
+        "ragged.csv",
+        "time,a,b\n0,1,2\n1,1,2\n2,1,2,9\n3,1,2\n",
+    );
     let e = err(&p, &LogOptions::new());
-    assert!(matches!(e, DataError::Ragged { row: 4, expected: 3, found: 4, .. }), "{e}");
+    assert!(
+        matches!(
+            e,
+            DataError::Ragged {
+                row: 4,
+                expected: 3,
+                found: 4,
+                ..
+            }
+        ),
+        "{e}"
+    );
     names_file(&e, &p);
 }
 
@@ -50,17 +68,41 @@ fn ragged_row_with_too_few_fields() {
     let d = tempfile::tempdir().unwrap();
     let p = write(d.path(), "short.csv", "time,a,b\n0,1,2\n1,1\n2,1,2\n");
     let e = err(&p, &LogOptions::new());
-    assert!(matches!(e, DataError::Ragged { row: 3, expected: 3, found: 2, .. }), "{e}");
+    assert!(
+        matches!(
+            e,
+            DataError::Ragged {
+                row: 3,
+                expected: 3,
+                found: 2,
+                ..
+            }
+        ),
+        "{e}"
+    );
 }
 
 #[test]
 fn text_in_a_number_column() {
     let d = tempfile::tempdir().unwrap();
-    let p = write(d.path(), "text.csv", "time_s,sg1_mVV,load_N\n0,0.1,5\n0.001,0.2,6\n0.002,n/a,7\n");
+    let p = write(
+        d.path(),
+        "text.csv",
+        "time_s,sg1_mVV,load_N\n0,0.1,5\n0.001,0.2,6\n0.002,n/a,7\n",
+    );
     let e = err(&p, &LogOptions::new());
     match &e {
-        DataError::NotANumber { row, column, name, found, .. } => {
-            assert_eq!((*row, *column, name.as_str(), found.as_str()), (4, 2, "sg1_mVV", "n/a"));
+        DataError::NotANumber {
+            row,
+            column,
+            name,
+            found,
+            ..
+        } => {
+            assert_eq!(
+                (*row, *column, name.as_str(), found.as_str()),
+                (4, 2, "sg1_mVV", "n/a")
+            );
         }
         other => panic!("expected NotANumber, found {other}"),
     }
@@ -76,7 +118,10 @@ fn empty_field_is_not_a_number() {
     let d = tempfile::tempdir().unwrap();
     let p = write(d.path(), "hole.csv", "a,b\n1,2\n3,\n");
     let e = err(&p, &LogOptions::new());
-    assert!(matches!(&e, DataError::NotANumber { row: 3, column: 2, found, .. } if found.is_empty()), "{e}");
+    assert!(
+        matches!(&e, DataError::NotANumber { row: 3, column: 2, found, .. } if found.is_empty()),
+        "{e}"
+    );
 }
 
 #[test]
@@ -103,9 +148,16 @@ fn header_only() {
 #[test]
 fn duplicate_column_names() {
     let d = tempfile::tempdir().unwrap();
-    let p = write(d.path(), "dup.csv", "time,load [kN],sg1,load [kN]\n0,1,2,3\n");
+    let p = write(
+        d.path(),
+        "dup.csv",
+        "time,load [kN],sg1,load [kN]\n0,1,2,3\n",
+    );
     let e = err(&p, &LogOptions::new());
-    assert!(matches!(&e, DataError::DuplicateColumn { first: 2, second: 4, name, .. } if name == "load [kN]"), "{e}");
+    assert!(
+        matches!(&e, DataError::DuplicateColumn { first: 2, second: 4, name, .. } if name == "load [kN]"),
+        "{e}"
+    );
     assert_eq!(e.row(), Some(1));
     names_file(&e, &p);
 }
@@ -115,7 +167,10 @@ fn unknown_unit_in_a_header() {
     let d = tempfile::tempdir().unwrap();
     let p = write(d.path(), "unit.csv", "time,load [kilobananas],sg1\n0,1,2\n");
     let e = err(&p, &LogOptions::new());
-    assert!(matches!(&e, DataError::UnknownUnit { column: 2, .. }), "{e}");
+    assert!(
+        matches!(&e, DataError::UnknownUnit { column: 2, .. }),
+        "{e}"
+    );
     assert!(e.to_string().contains("kilobananas"), "{e}");
     names_file(&e, &p);
     // Policy: a column that is not kept is not judged; the unit map overrides the header.
@@ -130,16 +185,27 @@ fn unknown_unit_in_a_header() {
 #[test]
 fn nan_and_infinities_are_errors_by_default() {
     let d = tempfile::tempdir().unwrap();
-    let p = write(d.path(), "nan.csv", "time,a,b\n0,1,2\n1,NaN,2\n2,1,inf\n3,-inf,2\n4,1,2\n");
+    let p = write(
+        d.path(),
+        "nan.csv",
+        "time,a,b\n0,1,2\n1,NaN,2\n2,1,inf\n3,-inf,2\n4,1,2\n",
+    );
     let e = err(&p, &LogOptions::new());
-    assert!(matches!(&e, DataError::NonFinite { row: 3, column: 2, value, .. } if value.is_nan()), "{e}");
+    assert!(
+        matches!(&e, DataError::NonFinite { row: 3, column: 2, value, .. } if value.is_nan()),
+        "{e}"
+    );
     names_file(&e, &p);
 }
 
 #[test]
 fn nan_rows_reported_and_skipped_when_asked() {
     let d = tempfile::tempdir().unwrap();
-    let p = write(d.path(), "nan.csv", "time,a,b\n0,1,2\n1,NaN,2\n2,1,inf\n3,-inf,2\n4,5,6\n");
+    let p = write(
+        d.path(),
+        "nan.csv",
+        "time,a,b\n0,1,2\n1,NaN,2\n2,1,inf\n3,-inf,2\n4,5,6\n",
+    );
     let log = read_log(&p, &LogOptions::new().skip_nan(true)).unwrap();
     assert_eq!(log.rows(), 2);
     assert_eq!(log.channel("a").unwrap().values, vec![1.0, 5.0]);
@@ -154,7 +220,11 @@ fn nan_rows_reported_and_skipped_when_asked() {
 #[test]
 fn non_monotonic_time() {
     let d = tempfile::tempdir().unwrap();
-    let p = write(d.path(), "back.csv", "time,a\n0.0,1\n0.1,1\n0.2,1\n0.15,1\n0.3,1\n");
+    let p = write(
+        d.path(),
+        "back.csv",
+        "time,a\n0.0,1\n0.1,1\n0.2,1\n0.15,1\n0.3,1\n",
+    );
     let e = err(&p, &LogOptions::new());
     assert!(
         matches!(&e, DataError::TimeNotIncreasing { row: 5, column: 1, previous, found, .. } if *previous == 0.2 && *found == 0.15),
@@ -162,7 +232,10 @@ fn non_monotonic_time() {
     );
     // A repeated time is not an increase either.
     let p = write(d.path(), "same.csv", "time,a\n0.0,1\n0.1,1\n0.1,1\n");
-    assert!(matches!(err(&p, &LogOptions::new()), DataError::TimeNotIncreasing { row: 4, .. }));
+    assert!(matches!(
+        err(&p, &LogOptions::new()),
+        DataError::TimeNotIncreasing { row: 4, .. }
+    ));
 }
 
 #[test]
@@ -183,14 +256,20 @@ fn truncated_parquet_file() {
     // Policy: an empty .parquet file is Empty, like an empty CSV file.
     let p = d.path().join("zero.parquet");
     std::fs::write(&p, b"").unwrap();
-    assert!(matches!(err(&p, &LogOptions::new()), DataError::Empty { .. }));
+    assert!(matches!(
+        err(&p, &LogOptions::new()),
+        DataError::Empty { .. }
+    ));
 }
 
 #[test]
 fn unsupported_extension_and_missing_file() {
     let d = tempfile::tempdir().unwrap();
     let p = write(d.path(), "log.xlsx", "x");
-    assert!(matches!(err(&p, &LogOptions::new()), DataError::UnsupportedFormat { .. }));
+    assert!(matches!(
+        err(&p, &LogOptions::new()),
+        DataError::UnsupportedFormat { .. }
+    ));
     let e = err(&d.path().join("nope.csv"), &LogOptions::new());
     assert!(matches!(e, DataError::Io { .. }), "{e}");
     assert!(e.to_string().contains("nope.csv"));
@@ -201,7 +280,10 @@ fn missing_column_names_what_exists() {
     let d = tempfile::tempdir().unwrap();
     let p = write(d.path(), "a.csv", "time,a\n0,1\n");
     let e = err(&p, &LogOptions::new().keep(["b"]));
-    assert!(e.to_string().contains("no column `b`") && e.to_string().contains("time, a"), "{e}");
+    assert!(
+        e.to_string().contains("no column `b`") && e.to_string().contains("time, a"),
+        "{e}"
+    );
 }
 
 #[test]
@@ -220,10 +302,23 @@ fn errors_deep_in_the_file_name_the_right_row_across_blocks() {
         }
     }
     let p = write(d.path(), "long.csv", &text);
-    let opts = LogOptions { block_bytes: 4096, ..LogOptions::new() };
+    let opts = LogOptions {
+        block_bytes: 4096,
+        ..LogOptions::new()
+    };
     let e = err(&p, &opts);
     // Data row i sits on line i + 2, plus one for the blank line before row 15 000.
-    assert!(matches!(&e, DataError::NotANumber { row: 17_348, column: 3, .. }), "{e}");
+    assert!(
+        matches!(
+            &e,
+            DataError::NotANumber {
+                row: 17_348,
+                column: 3,
+                ..
+            }
+        ),
+        "{e}"
+    );
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -246,7 +341,10 @@ fn units_from_headers_in_every_form_and_the_override_map() {
     assert_eq!(sym("ch5"), "mV/V");
     // "t" is taken as the time axis, in seconds when no unit is stated.
     assert_eq!(log.time.as_ref().unwrap().channel.name, "t");
-    assert_eq!(log.names(), vec!["t", "load", "force", "sg1", "strain", "ch5"]);
+    assert_eq!(
+        log.names(),
+        vec!["t", "load", "force", "sg1", "strain", "ch5"]
+    );
     assert_eq!(log.channel("load").unwrap().column, 2);
 }
 
@@ -255,7 +353,14 @@ fn values_are_the_correctly_rounded_doubles() {
     // Reference: Rust's f64 FromStr is correctly rounded (IEEE 754 round to nearest), as is
     // Python's float(); the reader must give the same bits.
     let d = tempfile::tempdir().unwrap();
-    let texts = ["0.1", "-0.000123", "1e-7", "123456.789012", "2.2250738585072014e-308", "0.30000000000000004"];
+    let texts = [
+        "0.1",
+        "-0.000123",
+        "1e-7",
+        "123456.789012",
+        "2.2250738585072014e-308",
+        "0.30000000000000004",
+    ];
     let body: String = texts.iter().map(|t| format!("{t}\n")).collect();
     let p = write(d.path(), "bits.csv", &format!("x\n{body}"));
     let log = read_log(&p, &LogOptions::new()).unwrap();
@@ -297,8 +402,19 @@ fn iso_timestamps_as_time_axis() {
     assert_eq!(t.start_unix_s, Some(1_796_155_200.0));
     assert_close(t.channel.values[2], 0.02, 1e-9, 0.0);
     assert_close(t.sample_rate_hz, 100.0, 1e-6, 0.0);
-    let p = write(d.path(), "ts_bad.csv", "timestamp,load_N\n2026-12-01T20:00:00Z,1\nlater,2\n");
-    assert!(matches!(err(&p, &LogOptions::new()), DataError::BadTimestamp { row: 3, column: 1, .. }));
+    let p = write(
+        d.path(),
+        "ts_bad.csv",
+        "timestamp,load_N\n2026-12-01T20:00:00Z,1\nlater,2\n",
+    );
+    assert!(matches!(
+        err(&p, &LogOptions::new()),
+        DataError::BadTimestamp {
+            row: 3,
+            column: 1,
+            ..
+        }
+    ));
 }
 
 #[test]
@@ -326,7 +442,10 @@ fn streaming_yields_the_same_values_as_the_whole_read() {
         text.push_str(&format!("{},{}\n", i, i * 3));
     }
     let p = write(d.path(), "s.csv", &text);
-    let opts = LogOptions { block_bytes: 4096, ..LogOptions::new() };
+    let opts = LogOptions {
+        block_bytes: 4096,
+        ..LogOptions::new()
+    };
     let mut n = 0;
     let mut chunks = 0;
     for c in open_log(&p, &opts).unwrap() {
@@ -349,8 +468,16 @@ fn parquet_round_trip_and_projection() {
     let t: Vec<f64> = (0..3000).map(|i| i as f64 * 0.001).collect();
     let a: Vec<f64> = (0..3000).map(|i| (i as f64 * 0.01).cos()).collect();
     let b: Vec<f64> = (0..3000).map(|i| i as f64).collect();
-    write_columns(&p, &[("time_s", &t), ("sg1_mVV", &a), ("load_N", &b)], &ExportOptions::default()).unwrap();
-    let opts = LogOptions { block_bytes: 8 * 1024 * 2, ..LogOptions::new().keep(["sg1"]) };
+    write_columns(
+        &p,
+        &[("time_s", &t), ("sg1_mVV", &a), ("load_N", &b)],
+        &ExportOptions::default(),
+    )
+    .unwrap();
+    let opts = LogOptions {
+        block_bytes: 8 * 1024 * 2,
+        ..LogOptions::new().keep(["sg1"])
+    };
     let log = read_log(&p, &opts).unwrap();
     assert_eq!(log.format, LogFormat::Parquet);
     assert_eq!(log.names(), vec!["time", "sg1"]);
@@ -366,10 +493,21 @@ fn csv_export_matches_c_printf_and_reads_back() {
     let d = tempfile::tempdir().unwrap();
     let p = d.path().join("o.csv");
     let x = [0.03125, -0.00004, 1234.56785, -7.0];
-    write_columns(&p, &[("x", &x)], &ExportOptions { decimals: Some(4), ..Default::default() }).unwrap();
+    write_columns(
+        &p,
+        &[("x", &x)],
+        &ExportOptions {
+            decimals: Some(4),
+            ..Default::default()
+        },
+    )
+    .unwrap();
     // Python 3.11.7 "%.4f" % x (C printf rules): 0.0312 (an exact tie, half to even), -0.0000,
     // 1234.5678 (1234.56785 is stored as 1234.5678499999999...), -7.0000.
-    assert_eq!(std::fs::read_to_string(&p).unwrap(), "x\n0.0312\n-0.0000\n1234.5678\n-7.0000\n");
+    assert_eq!(
+        std::fs::read_to_string(&p).unwrap(),
+        "x\n0.0312\n-0.0000\n1234.5678\n-7.0000\n"
+    );
 }
 
 #[test]
@@ -385,12 +523,21 @@ fn export_is_atomic_and_never_touches_the_input() {
     let target = d.path().join("out.csv");
     std::fs::create_dir(&target).unwrap();
     assert!(write_log(&log, &target, &ExportOptions::default()).is_err());
-    let names: Vec<String> =
-        std::fs::read_dir(d.path()).unwrap().map(|e| e.unwrap().file_name().to_string_lossy().into_owned()).collect();
-    assert!(names.iter().all(|n| !n.ends_with(".tmp")), "left behind: {names:?}");
+    let names: Vec<String> = std::fs::read_dir(d.path())
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .collect();
+    assert!(
+        names.iter().all(|n| !n.ends_with(".tmp")),
+        "left behind: {names:?}"
+    );
     // Lengths that differ are refused before anything is created.
-    let e = write_columns(d.path().join("x.csv"), &[("a", &[1.0]), ("b", &[1.0, 2.0])], &ExportOptions::default())
-        .unwrap_err();
+    let e = write_columns(
+        d.path().join("x.csv"),
+        &[("a", &[1.0]), ("b", &[1.0, 2.0])],
+        &ExportOptions::default(),
+    )
+    .unwrap_err();
     assert!(matches!(e, DataError::LengthMismatch { .. }));
     assert!(!d.path().join("x.csv").exists());
 }

@@ -27,7 +27,9 @@ impl AdcScale {
     pub fn new(full_scale_counts: f64, full_scale: OutputRatio) -> Result<AdcScale, PhysicsError> {
         check_positive("full-scale counts", full_scale_counts, "")?;
         check_positive("full-scale output ratio", full_scale.value(), " V/V")?;
-        Ok(AdcScale { ratio_per_count: full_scale.value() / full_scale_counts })
+        Ok(AdcScale {
+            ratio_per_count: full_scale.value() / full_scale_counts,
+        })
     }
 
     /// A bipolar converter of `bits` bits (full scale 2^(bits−1) counts) behind an amplifier of
@@ -51,7 +53,11 @@ impl AdcScale {
         excitation: ElectricPotential,
     ) -> Result<AdcScale, PhysicsError> {
         if !(2..=32).contains(&bits) {
-            return Err(PhysicsError::invalid("converter resolution", format!("{bits} bits"), "2 to 32 bits"));
+            return Err(PhysicsError::invalid(
+                "converter resolution",
+                format!("{bits} bits"),
+                "2 to 32 bits",
+            ));
         }
         check_positive("amplifier gain", gain, "")?;
         check_positive("input range", input_range.get::<volt>(), " V")?;
@@ -188,12 +194,18 @@ pub fn channel_to_strain(channel: &super::Channel) -> Result<super::Channel, Dat
     let lead = m.leads.as_ref().map_or(1.0, LeadWires::strain_factor);
     // µε per m/m: 10⁶ (SI prefix micro).
     let scale = lead * 1e6;
-    let values = channel.values.iter().map(|&v| inv.apply_or_nan(v * f) * scale).collect();
-    let unit = super::header::parse_unit("µε").map_err(|e| DataError::Physics(PhysicsError::invalid(
-        "strain unit",
-        e.to_string(),
-        "µε in the unit table",
-    )))?;
+    let values = channel
+        .values
+        .iter()
+        .map(|&v| inv.apply_or_nan(v * f) * scale)
+        .collect();
+    let unit = super::header::parse_unit("µε").map_err(|e| {
+        DataError::Physics(PhysicsError::invalid(
+            "strain unit",
+            e.to_string(),
+            "µε in the unit table",
+        ))
+    })?;
     Ok(super::Channel {
         name: channel.name.clone(),
         header: channel.header.clone(),
@@ -223,11 +235,19 @@ mod tests {
             let strains = [-3000.0, -10.0, 0.0, 250.0, 5000.0];
             let r: Vec<f64> = strains
                 .iter()
-                .map(|&ue| a.output(Strain::from_microstrain(ue), 2.1, 0.3).unwrap().value())
+                .map(|&ue| {
+                    a.output(Strain::from_microstrain(ue), 2.1, 0.3)
+                        .unwrap()
+                        .value()
+                })
                 .collect();
             let back = ratio_to_strain(&r, a, 2.1, 0.3).unwrap();
             for (ue, e) in strains.iter().zip(back) {
-                assert!((e * 1e6 - ue).abs() < 1e-9 * ue.abs().max(1.0), "{a:?}: {ue} vs {}", e * 1e6);
+                assert!(
+                    (e * 1e6 - ue).abs() < 1e-9 * ue.abs().max(1.0),
+                    "{a:?}: {ue} vs {}",
+                    e * 1e6
+                );
             }
         }
     }

@@ -77,7 +77,11 @@ impl Calibration {
     /// assert!(Calibration::new(bad, Unit::parse("mV/V")?, Unit::parse("N")?).is_err());
     /// # Ok::<(), Box<dyn std::error::Error>>(())
     /// ```
-    pub fn new(model: CalibrationModel, input: Unit, output: Unit) -> Result<Calibration, PhysicsError> {
+    pub fn new(
+        model: CalibrationModel,
+        input: Unit,
+        output: Unit,
+    ) -> Result<Calibration, PhysicsError> {
         match &model {
             CalibrationModel::Linear { sensitivity, zero } => {
                 crate::check_finite("calibration zero", *zero, "")?;
@@ -99,7 +103,11 @@ impl Calibration {
                 }
             }
         }
-        Ok(Calibration { model, input, output })
+        Ok(Calibration {
+            model,
+            input,
+            output,
+        })
     }
 
     /// Loads for signals already in the calibration's input unit.
@@ -125,12 +133,19 @@ impl Calibration {
             return Err(DataError::Physics(PhysicsError::invalid(
                 format!("unit of channel `{}`", signal.name),
                 u.symbol().to_string(),
-                format!("a unit like the calibration's input, {}", self.input.symbol()),
+                format!(
+                    "a unit like the calibration's input, {}",
+                    self.input.symbol()
+                ),
             )));
         }
         // Both units are linear here (no offset: signals are not absolute temperatures).
         let k = u.factor() / self.input.factor();
-        let values = signal.values.iter().map(|&x| self.model.load(x * k)).collect();
+        let values = signal
+            .values
+            .iter()
+            .map(|&x| self.model.load(x * k))
+            .collect();
         Ok(Channel {
             name: signal.name.clone(),
             header: signal.header.clone(),
@@ -149,7 +164,10 @@ mod tests {
     #[test]
     fn linear_inverts_the_forward_line() {
         // Closed form: signal = zero + sensitivity·load, so load(signal) returns the load.
-        let m = CalibrationModel::Linear { sensitivity: 0.19987, zero: -0.0123 };
+        let m = CalibrationModel::Linear {
+            sensitivity: 0.19987,
+            zero: -0.0123,
+        };
         for load in [-5.0, 0.0, 3.3, 10.0] {
             let s = -0.0123 + 0.19987 * load;
             assert!((m.load(s) - load).abs() < 1e-12);
@@ -160,7 +178,9 @@ mod tests {
     fn horner_matches_power_sum() {
         // numpy.polynomial.polynomial.polyval([1.5, -2, 0.25, 1e-3], 3.0) = 1.5 - 6 + 2.25 + 0.027
         // = -2.223 (numpy 2.4.6; the sum is exact arithmetic here).
-        let m = CalibrationModel::Polynomial { coefficients: vec![1.5, -2.0, 0.25, 1e-3] };
+        let m = CalibrationModel::Polynomial {
+            coefficients: vec![1.5, -2.0, 0.25, 1e-3],
+        };
         assert!((m.load(3.0) + 2.223).abs() < 1e-12);
     }
 }

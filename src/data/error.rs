@@ -297,6 +297,10 @@ impl DataError {
     }
 
     pub(crate) fn io(path: &Path, action: &'static str, source: std::io::Error) -> DataError {
-        DataError::Io { path: path.to_path_buf(), action, source }
+        DataError::Io {
+            path: path.to_path_buf(),
+            action,
+            source,
+        }
     }
 }

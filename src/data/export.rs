@@ -112,39 +112,58 @@ enum Sink {
 
 impl std::fmt::Debug for ColumnWriter {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.debug_struct("ColumnWriter").field("path", &self.path).field("names", &self.names).finish()
+        f.debug_struct("ColumnWriter")
+            .field("path", &self.path)
+            .field("names", &self.names)
+            .finish()
     }
 }
 
 impl ColumnWriter {
     /// Starts writing columns `names` to `path` (format from `opts` or the extension).
-    pub fn create(path: impl AsRef<Path>, names: &[&str], opts: &ExportOptions) -> Result<ColumnWriter, DataError> {
+    pub fn create(
+        path: impl AsRef<Path>,
+        names: &[&str],
+        opts: &ExportOptions,
+    ) -> Result<ColumnWriter, DataError> {
         let path = path.as_ref();
         for p in &opts.protect {
             if same_file(p, path) {
-                return Err(DataError::WouldOverwriteInput { path: path.to_path_buf() });
+                return Err(DataError::WouldOverwriteInput {
+                    path: path.to_path_buf(),
+                });
             }
         }
         let format = opts.format.unwrap_or_else(|| {
-            match path.extension().and_then(|e| e.to_str()).map(str::to_ascii_lowercase).as_deref() {
+            match path
+                .extension()
+                .and_then(|e| e.to_str())
+                .map(str::to_ascii_lowercase)
+                .as_deref()
+            {
                 Some("parquet" | "pq") => LogFormat::Parquet,
                 _ => LogFormat::Csv,
             }
         });
         let temp = TempFile::create(path)?;
         let file = temp.file()?;
-        let handle = file.try_clone().map_err(|e| DataError::io(path, "cannot write", e))?;
+        let handle = file
+            .try_clone()
+            .map_err(|e| DataError::io(path, "cannot write", e))?;
         let out = BufWriter::with_capacity(1 << 20, file);
         let sink = match format {
             LogFormat::Csv => {
                 let mut out = out;
                 let header = names.join(",") + "\n";
-                out.write_all(header.as_bytes()).map_err(|e| DataError::io(path, "cannot write", e))?;
+                out.write_all(header.as_bytes())
+                    .map_err(|e| DataError::io(path, "cannot write", e))?;
                 Sink::Csv(out)
             }
             LogFormat::Parquet => {
                 let schema = Schema::from_iter(
-                    names.iter().map(|n| Field::new(PlSmallStr::from(*n), DataType::Float64)),
+                    names
+                        .iter()
+                        .map(|n| Field::new(PlSmallStr::from(*n), DataType::Float64)),
                 );
                 // Snappy: what pyarrow writes by default, readable everywhere, cheap on CPU.
                 let w = ParquetWriter::new(out)
@@ -189,7 +208,11 @@ impl ColumnWriter {
                     .names
                     .iter()
                     .zip(columns)
-                    .map(|(n, v)| Float64Chunked::from_slice(PlSmallStr::from(n.as_str()), v).into_series().into())
+                    .map(|(n, v)| {
+                        Float64Chunked::from_slice(PlSmallStr::from(n.as_str()), v)
+                            .into_series()
+                            .into()
+                    })
                     .collect();
                 let df = DataFrame::new(rows, cols).map_err(|e| engine(&self.path, e))?;
                 w.write_batch(&df).map_err(|e| engine(&self.path, e))
@@ -202,7 +225,8 @@ impl ColumnWriter {
         let path = self.path;
         match self.sink {
             Sink::Csv(out) => {
-                out.into_inner().map_err(|e| DataError::io(&path, "cannot write", e.into_error()))?;
+                out.into_inner()
+                    .map_err(|e| DataError::io(&path, "cannot write", e.into_error()))?;
             }
             // The footer write ends with a flush of the buffered file (polars-parquet FileWriter::end).
             Sink::Parquet(w) => {
@@ -210,7 +234,8 @@ impl ColumnWriter {
             }
         }
         let file = self.handle;
-        file.sync_all().map_err(|e| DataError::io(&path, "cannot write", e))?;
+        file.sync_all()
+            .map_err(|e| DataError::io(&path, "cannot write", e))?;
         let bytes = file.metadata().map(|m| m.len()).unwrap_or(0);
         drop(file);
         self.temp.commit()?;
@@ -219,7 +244,10 @@ impl ColumnWriter {
 }
 
 fn engine(path: &Path, e: PolarsError) -> DataError {
-    DataError::Engine { path: path.to_path_buf(), reason: e.to_string() }
+    DataError::Engine {
+        path: path.to_path_buf(),
+        reason: e.to_string(),
+    }
 }
 
 /// Writes a log's time and channels (headers `name [unit]`, values as stored) atomically;
@@ -238,7 +266,11 @@ fn engine(path: &Path, e: PolarsError) -> DataError {
 /// assert!(write_log(&log, &src, &ExportOptions::default()).is_err());
 /// # Ok::<(), Box<dyn std::error::Error>>(())
 /// ```
-pub fn write_log(log: &Log, path: impl AsRef<Path>, opts: &ExportOptions) -> Result<u64, DataError> {
+pub fn write_log(
+    log: &Log,
+    path: impl AsRef<Path>,
+    opts: &ExportOptions,
+) -> Result<u64, DataError> {
     let headers: Vec<String> = log
         .time
         .iter()
@@ -246,10 +278,19 @@ pub fn write_log(log: &Log, path: impl AsRef<Path>, opts: &ExportOptions) -> Res
         .chain(log.channels.iter())
         .map(|c| {
             let sym = c.unit.symbol();
-            if sym.is_empty() || sym == "1" { c.name.clone() } else { format!("{} [{sym}]", c.name) }
+            if sym.is_empty() || sym == "1" {
+                c.name.clone()
+            } else {
+                format!("{} [{sym}]", c.name)
+            }
         })
         .collect();
-    let values = log.time.iter().map(|t| &t.channel).chain(log.channels.iter()).map(|c| c.values.as_slice());
+    let values = log
+        .time
+        .iter()
+        .map(|t| &t.channel)
+        .chain(log.channels.iter())
+        .map(|c| c.values.as_slice());
     let columns: Vec<(&str, &[f64])> = headers.iter().map(String::as_str).zip(values).collect();
     let mut opts = opts.clone();
     opts.protect.push(log.path.clone());
@@ -269,8 +310,10 @@ pub fn write_text_atomic(path: impl AsRef<Path>, text: &str) -> Result<(), DataE
     let path = path.as_ref();
     let temp = TempFile::create(path)?;
     let mut f = temp.file()?;
-    f.write_all(text.as_bytes()).map_err(|e| DataError::io(path, "cannot write", e))?;
-    f.sync_all().map_err(|e| DataError::io(path, "cannot write", e))?;
+    f.write_all(text.as_bytes())
+        .map_err(|e| DataError::io(path, "cannot write", e))?;
+    f.sync_all()
+        .map_err(|e| DataError::io(path, "cannot write", e))?;
     drop(f);
     temp.commit()
 }
@@ -296,11 +339,19 @@ impl TempFile {
             Some(d) if !d.as_os_str().is_empty() => d.to_path_buf(),
             _ => PathBuf::from("."),
         };
-        let name = target.file_name().map(|n| n.to_string_lossy().into_owned()).unwrap_or_default();
+        let name = target
+            .file_name()
+            .map(|n| n.to_string_lossy().into_owned())
+            .unwrap_or_default();
         let k = COUNTER.fetch_add(1, Ordering::Relaxed);
         let temp = dir.join(format!(".{name}.{}-{k}.tmp", std::process::id()));
-        File::create_new(&temp).map_err(|e| DataError::io(target, "cannot create a temporary file beside", e))?;
-        Ok(TempFile { temp, target: target.to_path_buf(), committed: false })
+        File::create_new(&temp)
+            .map_err(|e| DataError::io(target, "cannot create a temporary file beside", e))?;
+        Ok(TempFile {
+            temp,
+            target: target.to_path_buf(),
+            committed: false,
+        })
     }
 
     fn file(&self) -> Result<File, DataError> {
@@ -334,9 +385,15 @@ const CSV_BLOCK_ROWS: usize = 1 << 16;
 /// Rows per Parquet row group when writing whole columns.
 const PARQUET_GROUP_ROWS: usize = 1 << 19;
 
-fn write_csv_rows(out: &mut impl Write, columns: &[&[f64]], decimals: Option<usize>) -> std::io::Result<()> {
+fn write_csv_rows(
+    out: &mut impl Write,
+    columns: &[&[f64]],
+    decimals: Option<usize>,
+) -> std::io::Result<()> {
     let rows = columns.first().map_or(0, |c| c.len());
-    let threads = std::thread::available_parallelism().map_or(1, |n| n.get()).clamp(1, 8);
+    let threads = std::thread::available_parallelism()
+        .map_or(1, |n| n.get())
+        .clamp(1, 8);
     let mut start = 0;
     while start < rows {
         let stop = (start + CSV_BLOCK_ROWS * threads).min(rows);

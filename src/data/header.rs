@@ -49,7 +49,10 @@ impl HeaderUnit {
                 let name = body[..at].trim();
                 let unit_text = body[at + open.len_utf8()..].trim();
                 if !name.is_empty() {
-                    return Ok(HeaderUnit { name: name.to_string(), unit: Some(parse_unit(unit_text)?) });
+                    return Ok(HeaderUnit {
+                        name: name.to_string(),
+                        unit: Some(parse_unit(unit_text)?),
+                    });
                 }
             }
         }
@@ -57,7 +60,10 @@ impl HeaderUnit {
         if let Some((name, unit_text)) = h.rsplit_once(" / ") {
             let name = name.trim();
             if !name.is_empty() {
-                return Ok(HeaderUnit { name: name.to_string(), unit: Some(parse_unit(unit_text)?) });
+                return Ok(HeaderUnit {
+                    name: name.to_string(),
+                    unit: Some(parse_unit(unit_text)?),
+                });
             }
         }
         if let Some((name, suffix)) = h.rsplit_once('_')
@@ -65,9 +71,15 @@ impl HeaderUnit {
             && !suffix.is_empty()
             && let Ok(unit) = parse_unit(&spell_out(suffix))
         {
-            return Ok(HeaderUnit { name: name.to_string(), unit: Some(unit) });
+            return Ok(HeaderUnit {
+                name: name.to_string(),
+                unit: Some(unit),
+            });
         }
-        Ok(HeaderUnit { name: h.to_string(), unit: None })
+        Ok(HeaderUnit {
+            name: h.to_string(),
+            unit: None,
+        })
     }
 }
 

@@ -71,7 +71,14 @@ impl Channel {
     /// ```
     pub fn new(name: impl Into<String>, unit: Unit, values: Vec<f64>) -> Channel {
         let name = name.into();
-        Channel { header: name.clone(), name, column: 0, unit, values, meta: ChannelMeta::default() }
+        Channel {
+            header: name.clone(),
+            name,
+            column: 0,
+            unit,
+            values,
+            meta: ChannelMeta::default(),
+        }
     }
 
     /// The number of samples.
@@ -277,7 +284,10 @@ impl Log {
     /// # Ok::<(), Box<dyn std::error::Error>>(())
     /// ```
     pub fn take(&mut self, name: &str) -> Option<Channel> {
-        let at = self.channels.iter().position(|c| c.name == name || c.header == name)?;
+        let at = self
+            .channels
+            .iter()
+            .position(|c| c.name == name || c.header == name)?;
         Some(self.channels.remove(at))
     }
 
@@ -302,7 +312,11 @@ impl Log {
                 c.meta = meta;
                 Ok(())
             }
-            None => Err(DataError::NoSuchColumn { path, name: name.to_string(), available }),
+            None => Err(DataError::NoSuchColumn {
+                path,
+                name: name.to_string(),
+                available,
+            }),
         }
     }
 

@@ -59,7 +59,11 @@ fn is_time_name(name: &str) -> bool {
 }
 
 /// Builds the plan from the header names.
-pub(crate) fn make_plan(path: &Path, headers: Vec<String>, opts: &LogOptions) -> Result<Plan, DataError> {
+pub(crate) fn make_plan(
+    path: &Path,
+    headers: Vec<String>,
+    opts: &LogOptions,
+) -> Result<Plan, DataError> {
     // Duplicates first: with two columns of one name, nothing below is well defined.
     for (j, h) in headers.iter().enumerate() {
         if let Some(i) = headers[..j].iter().position(|g| g == h) {
@@ -106,12 +110,15 @@ pub(crate) fn make_plan(path: &Path, headers: Vec<String>, opts: &LogOptions) ->
         if let Some(u) = &overrides[i] {
             return Ok(Some(u.clone()));
         }
-        parsed[i].1.clone().map_err(|source| DataError::UnknownUnit {
-            path: path.to_path_buf(),
-            column: i + 1,
-            header: headers[i].clone(),
-            source,
-        })
+        parsed[i]
+            .1
+            .clone()
+            .map_err(|source| DataError::UnknownUnit {
+                path: path.to_path_buf(),
+                column: i + 1,
+                header: headers[i].clone(),
+                source,
+            })
     };
 
     let time_index = match &opts.time {
@@ -163,7 +170,11 @@ pub(crate) fn make_plan(path: &Path, headers: Vec<String>, opts: &LogOptions) ->
         });
     }
     // Two headers may strip to one name (`load [N]`, `load [kN]`): those keep their headers.
-    let names: Vec<String> = time.iter().chain(channels.iter()).map(|c| c.name.clone()).collect();
+    let names: Vec<String> = time
+        .iter()
+        .chain(channels.iter())
+        .map(|c| c.name.clone())
+        .collect();
     for c in &mut channels {
         if names.iter().filter(|n| **n == c.name).count() > 1 {
             c.name = c.header.trim().to_string();

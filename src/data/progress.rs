@@ -151,7 +151,9 @@ impl Progress for TerminalProgress {
         }
         if let Ok(mut s) = self.state.lock() {
             let now = Instant::now();
-            if s.last_draw.is_none_or(|t| now - t >= Duration::from_millis(100)) {
+            if s.last_draw
+                .is_none_or(|t| now - t >= Duration::from_millis(100))
+            {
                 s.last_draw = Some(now);
                 TerminalProgress::draw(&s, done);
             }

@@ -296,11 +296,18 @@ pub(crate) fn first_data_row(format: LogFormat) -> usize {
 }
 
 fn format_of(path: &Path) -> Result<LogFormat, DataError> {
-    let ext = path.extension().and_then(|e| e.to_str()).unwrap_or("").to_ascii_lowercase();
+    let ext = path
+        .extension()
+        .and_then(|e| e.to_str())
+        .unwrap_or("")
+        .to_ascii_lowercase();
     match ext.as_str() {
         "csv" | "tsv" | "txt" | "dat" => Ok(LogFormat::Csv),
         "parquet" | "pq" => Ok(LogFormat::Parquet),
-        _ => Err(DataError::UnsupportedFormat { path: path.to_path_buf(), extension: ext }),
+        _ => Err(DataError::UnsupportedFormat {
+            path: path.to_path_buf(),
+            extension: ext,
+        }),
     }
 }
 
@@ -341,7 +348,10 @@ fn split_fields(line: &[u8], sep: u8) -> Vec<&[u8]> {
 fn unquote(field: &[u8]) -> String {
     let s = String::from_utf8_lossy(field);
     let t = s.trim();
-    t.strip_prefix('"').and_then(|t| t.strip_suffix('"')).unwrap_or(t).to_string()
+    t.strip_prefix('"')
+        .and_then(|t| t.strip_suffix('"'))
+        .unwrap_or(t)
+        .to_string()
 }
 
 fn short(field: &[u8]) -> String {
@@ -364,7 +374,12 @@ struct CsvSetup {
     t0: (i64, f64),
 }
 
-fn read_some(file: &mut File, buf: &mut Vec<u8>, want: usize, path: &Path) -> Result<usize, DataError> {
+fn read_some(
+    file: &mut File,
+    buf: &mut Vec<u8>,
+    want: usize,
+    path: &Path,
+) -> Result<usize, DataError> {
     let start = buf.len();
     buf.resize(start + want, 0);
     let mut got = 0;
@@ -389,9 +404,19 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
     // Read until the header and the first data line are in hand.
     let mut buf = Vec::new();
     loop {
-        let got = read_some(&mut file, &mut buf, (64 << 10).min(opts.block_bytes.max(4096)), path)?;
+        let got = read_some(
+            &mut file,
+            &mut buf,
+            (64 << 10).min(opts.block_bytes.max(4096)),
+            path,
+        )?;
         // Complete (newline-ended) lines that are not blank: the header and a first data row.
-        let complete = buf.split(|&b| b == b'\n').rev().skip(1).filter(|l| !is_blank(l)).count();
+        let complete = buf
+            .split(|&b| b == b'\n')
+            .rev()
+            .skip(1)
+            .filter(|l| !is_blank(l))
+            .count();
         if got == 0 || complete >= 2 {
             break;
         }
@@ -401,7 +426,9 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
         text = t; // UTF-8 byte-order mark
     }
     if is_blank(text) {
-        return Err(DataError::Empty { path: path.to_path_buf() });
+        return Err(DataError::Empty {
+            path: path.to_path_buf(),
+        });
     }
     let header_end = text.iter().position(|&b| b == b'\n').unwrap_or(text.len());
     let header_line = &text[..header_end];
@@ -416,7 +443,10 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
             b','
         }
     });
-    let headers: Vec<String> = split_fields(header_line, sep).into_iter().map(unquote).collect();
+    let headers: Vec<String> = split_fields(header_line, sep)
+        .into_iter()
+        .map(unquote)
+        .collect();
     let mut plan = make_plan(path, headers, opts)?;
     let after = (header_end + 1).min(text.len());
     let rest = text[after..].to_vec();
@@ -424,7 +454,9 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
     // The first data line decides whether the time column holds numbers or timestamps.
     let first = rest.split(|&b| b == b'\n').find(|l| !is_blank(l));
     let Some(first) = first else {
-        return Err(DataError::NoRows { path: path.to_path_buf() });
+        return Err(DataError::NoRows {
+            path: path.to_path_buf(),
+        });
     };
     let mut t0 = (0, 0.0);
     if let Some(t) = plan.time.as_mut() {
@@ -439,7 +471,10 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
                         t0 = v;
                     }
                     None => {
-                        let row = 2 + rest.split(|&b| b == b'\n').take_while(|l| is_blank(l)).count();
+                        let row = 2 + rest
+                            .split(|&b| b == b'\n')
+                            .take_while(|l| is_blank(l))
+                            .count();
                         return Err(DataError::BadTimestamp {
                             path: path.to_path_buf(),
                             row,
@@ -452,7 +487,14 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
             }
         }
     }
-    let setup = CsvSetup { plan: plan.clone(), sep, rest, file, header_bytes, t0 };
+    let setup = CsvSetup {
+        plan: plan.clone(),
+        sep,
+        rest,
+        file,
+        header_bytes,
+        t0,
+    };
     let mut log = layout(&plan, LogFormat::Csv);
     if let Some(t) = log.time.as_mut()
         && plan.time.as_ref().is_some_and(|t| t.timestamp)
@@ -464,7 +506,13 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
         .name("gaugebook-log-reader".into())
         .spawn(move || csv_worker(setup, tx))
         .map_err(|e| DataError::io(path, "cannot start the reading thread", e))?;
-    Ok(LogStream { layout: log, total, rx: Some(rx), worker: Some(worker), plan })
+    Ok(LogStream {
+        layout: log,
+        total,
+        rx: Some(rx),
+        worker: Some(worker),
+        plan,
+    })
 }
 
 fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
@@ -500,8 +548,8 @@ fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
         }
         done += block.len() as u64;
         let lines = count_lines(&block);
-        let result = parse_block(&s, &schema, &block, next_row, lines, &mut last_time)
-            .map(|mut c| {
+        let result =
+            parse_block(&s, &schema, &block, next_row, lines, &mut last_time).map(|mut c| {
                 c.done = done;
                 c
             });
@@ -535,7 +583,11 @@ fn drop_blank_lines(block: &[u8], first_row: usize) -> (Option<Vec<u8>>, Option<
 
 fn count_lines(block: &[u8]) -> usize {
     let n = block.iter().filter(|&&b| b == b'\n').count();
-    if block.last().is_some_and(|&b| b != b'\n') { n + 1 } else { n }
+    if block.last().is_some_and(|&b| b != b'\n') {
+        n + 1
+    } else {
+        n
+    }
 }
 
 fn col_name(i: usize) -> PlSmallStr {
@@ -576,30 +628,39 @@ fn parse_block(
     // any is parsed from a copy without them, and the file row of each sample is kept.
     let (compact, rows) = drop_blank_lines(block, first_row);
     let text: &[u8] = compact.as_deref().unwrap_or(block);
-    let df = options.into_reader_with_file_handle(Cursor::new(text)).finish();
+    let df = options
+        .into_reader_with_file_handle(Cursor::new(text))
+        .finish();
     let df = match df {
         Ok(df) => df,
         Err(e) => {
-            return Err(locate(s, block, first_row).unwrap_or_else(|| DataError::Engine {
-                path: path.clone(),
-                reason: format!(
-                    "rows {first_row} to {}: {e}",
-                    first_row + lines.saturating_sub(1)
-                ),
-            }));
+            return Err(
+                locate(s, block, first_row).unwrap_or_else(|| DataError::Engine {
+                    path: path.clone(),
+                    reason: format!(
+                        "rows {first_row} to {}: {e}",
+                        first_row + lines.saturating_sub(1)
+                    ),
+                }),
+            );
         }
     };
     let height = df.height();
     let row_of = |i: usize| rows.as_ref().map_or(first_row + i, |r| r[i]);
-    let engine = |e: PolarsError| DataError::Engine { path: path.clone(), reason: e.to_string() };
+    let engine = |e: PolarsError| DataError::Engine {
+        path: path.clone(),
+        reason: e.to_string(),
+    };
 
     let extract = |c: &ColumnPlan| -> Result<Vec<f64>, DataError> {
         let col = df.column(&col_name(c.index)).map_err(engine)?;
         if col.null_count() > 0 {
-            return Err(locate(s, block, first_row).unwrap_or_else(|| DataError::Engine {
-                path: path.clone(),
-                reason: format!("column {} `{}` has an empty value", c.column(), c.header),
-            }));
+            return Err(
+                locate(s, block, first_row).unwrap_or_else(|| DataError::Engine {
+                    path: path.clone(),
+                    reason: format!("column {} `{}` has an empty value", c.column(), c.header),
+                }),
+            );
         }
         if c.timestamp {
             let ca = col.str().map_err(engine)?;
@@ -630,7 +691,11 @@ fn parse_block(
         Ok(out)
     };
     let mut time = plan.time.as_ref().map(&extract).transpose()?;
-    let mut channels: Vec<Vec<f64>> = plan.channels.iter().map(&extract).collect::<Result<_, _>>()?;
+    let mut channels: Vec<Vec<f64>> = plan
+        .channels
+        .iter()
+        .map(&extract)
+        .collect::<Result<_, _>>()?;
     drop(df);
 
     let mut chunk = LogChunk {
@@ -656,8 +721,12 @@ fn finish_chunk(
     last_time: &mut Option<(f64, usize)>,
 ) -> Result<(), DataError> {
     let path = &plan.path;
-    let cols: Vec<(&ColumnPlan, &Vec<f64>)> =
-        plan.time.iter().zip(time.iter()).chain(plan.channels.iter().zip(channels.iter())).collect();
+    let cols: Vec<(&ColumnPlan, &Vec<f64>)> = plan
+        .time
+        .iter()
+        .zip(time.iter())
+        .chain(plan.channels.iter().zip(channels.iter()))
+        .collect();
     let any_bad = cols.iter().any(|(_, v)| v.iter().any(|x| !x.is_finite()));
     if any_bad {
         let n = chunk_len(time, channels);
@@ -675,7 +744,12 @@ fn finish_chunk(
                     });
                 }
                 bad[i] = true;
-                chunk.skipped.push(SkippedRow { row, column: c.column(), name: c.header.clone(), value: v[i] });
+                chunk.skipped.push(SkippedRow {
+                    row,
+                    column: c.column(),
+                    name: c.header.clone(),
+                    value: v[i],
+                });
             }
         }
         let rows: Vec<usize> = (0..n).filter(|&i| !bad[i]).map(|i| chunk.row(i)).collect();
@@ -717,7 +791,10 @@ fn finish_chunk(
 }
 
 fn chunk_len(time: &Option<Vec<f64>>, channels: &[Vec<f64>]) -> usize {
-    time.as_ref().map(Vec::len).or_else(|| channels.first().map(Vec::len)).unwrap_or(0)
+    time.as_ref()
+        .map(Vec::len)
+        .or_else(|| channels.first().map(Vec::len))
+        .unwrap_or(0)
 }
 
 /// Finds the first line of a block that polars could not read, and says why, the way a person
@@ -733,7 +810,12 @@ fn locate(s: &CsvSetup, block: &[u8], first_row: usize) -> Option<DataError> {
         let row = first_row + k;
         let fields = split_fields(line, s.sep);
         if fields.len() != expected {
-            return Some(DataError::Ragged { path: path.clone(), row, expected, found: fields.len() });
+            return Some(DataError::Ragged {
+                path: path.clone(),
+                row,
+                expected,
+                found: fields.len(),
+            });
         }
         for c in plan.kept() {
             let f = fields[c.index];
@@ -770,13 +852,18 @@ fn locate(s: &CsvSetup, block: &[u8], first_row: usize) -> Option<DataError> {
 // Parquet
 
 fn parquet_err(path: &Path, e: impl std::fmt::Display) -> DataError {
-    DataError::Parquet { path: path.to_path_buf(), reason: e.to_string() }
+    DataError::Parquet {
+        path: path.to_path_buf(),
+        reason: e.to_string(),
+    }
 }
 
 fn open_parquet(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
     let file = File::open(path).map_err(|e| DataError::io(path, "cannot open", e))?;
     if file.metadata().map(|m| m.len()).unwrap_or(0) == 0 {
-        return Err(DataError::Empty { path: path.to_path_buf() });
+        return Err(DataError::Empty {
+            path: path.to_path_buf(),
+        });
     }
     let mut reader = ParquetReader::new(file);
     let schema = reader.schema().map_err(|e| parquet_err(path, e))?;
@@ -784,7 +871,9 @@ fn open_parquet(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> 
     let headers: Vec<String> = schema.iter_names().map(|n| n.to_string()).collect();
     let plan = make_plan(path, headers, opts)?;
     if rows == 0 {
-        return Err(DataError::NoRows { path: path.to_path_buf() });
+        return Err(DataError::NoRows {
+            path: path.to_path_buf(),
+        });
     }
     let log = layout(&plan, LogFormat::Parquet);
     let (tx, rx) = sync_channel(1);
@@ -793,7 +882,13 @@ fn open_parquet(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> 
         .name("gaugebook-log-reader".into())
         .spawn(move || parquet_worker(worker_plan, rows, tx))
         .map_err(|e| DataError::io(path, "cannot start the reading thread", e))?;
-    Ok(LogStream { layout: log, total: rows as u64, rx: Some(rx), worker: Some(worker), plan })
+    Ok(LogStream {
+        layout: log,
+        total: rows as u64,
+        rx: Some(rx),
+        worker: Some(worker),
+        plan,
+    })
 }
 
 fn parquet_worker(plan: Plan, rows: usize, tx: SyncSender<Result<LogChunk, DataError>>) {
@@ -828,16 +923,25 @@ fn parquet_slice(
         .map_err(|e| parquet_err(path, e))?;
     let first_row = offset + 1;
     let extract = |c: &ColumnPlan| -> Result<Vec<f64>, DataError> {
-        let col = df.column(c.header.as_str()).map_err(|e| parquet_err(path, e))?;
+        let col = df
+            .column(c.header.as_str())
+            .map_err(|e| parquet_err(path, e))?;
         let col = col.cast(&DataType::Float64).map_err(|e| {
-            parquet_err(path, format!("column {} `{}` is not numeric: {e}", c.column(), c.header))
+            parquet_err(
+                path,
+                format!("column {} `{}` is not numeric: {e}", c.column(), c.header),
+            )
         })?;
         let ca = col.f64().map_err(|e| parquet_err(path, e))?;
         // Nulls become NaN so that the NaN policy decides about them.
         Ok(ca.iter().map(|v| v.unwrap_or(f64::NAN)).collect())
     };
     let mut time = plan.time.as_ref().map(&extract).transpose()?;
-    let mut channels: Vec<Vec<f64>> = plan.channels.iter().map(&extract).collect::<Result<_, _>>()?;
+    let mut channels: Vec<Vec<f64>> = plan
+        .channels
+        .iter()
+        .map(&extract)
+        .collect::<Result<_, _>>()?;
     drop(df);
     let mut chunk = LogChunk {
         first_row,

@@ -84,10 +84,18 @@ mod tests {
 
     #[test]
     fn compensation_inverts_the_model_exactly() {
-        let tc = TemperatureCompensation { tc_zero: -3.0e-5, tc_span: 8.0e-6, reference_k: 296.15 };
+        let tc = TemperatureCompensation {
+            tc_zero: -3.0e-5,
+            tc_span: 8.0e-6,
+            reference_k: 296.15,
+        };
         let temps: Vec<f64> = (0..50).map(|i| 263.15 + 2.0 * i as f64).collect();
         let truth: Vec<f64> = (0..50).map(|i| 2.0 * (i as f64 / 49.0)).collect();
-        let mut s: Vec<f64> = truth.iter().zip(&temps).map(|(&x, &t)| tc.apparent(x, t)).collect();
+        let mut s: Vec<f64> = truth
+            .iter()
+            .zip(&temps)
+            .map(|(&x, &t)| tc.apparent(x, t))
+            .collect();
         compensate_temperature(&mut s, &temps, &tc).unwrap();
         for (a, b) in s.iter().zip(&truth) {
             assert!((a - b).abs() < 1e-14);

@@ -30,7 +30,12 @@ pub(crate) fn parse_timestamp_parts(text: &str) -> Option<(i64, f64)> {
         }
         Some(s.iter().fold(0i64, |a, &d| a * 10 + i64::from(d - b'0')))
     };
-    if t[4] != b'-' || t[7] != b'-' || !(t[10] == b'T' || t[10] == b' ') || t[13] != b':' || t[16] != b':' {
+    if t[4] != b'-'
+        || t[7] != b'-'
+        || !(t[10] == b'T' || t[10] == b' ')
+        || t[13] != b':'
+        || t[16] != b':'
+    {
         return None;
     }
     let (y, mo, d) = (num(&t[0..4])?, num(&t[5..7])?, num(&t[8..10])?);
@@ -51,7 +56,7 @@ pub(crate) fn parse_timestamp_parts(text: &str) -> Option<(i64, f64)> {
     }
     let offset_s = match rest {
         b"" | b"Z" | b"z" => 0,
-        [sign @ (b'+' | b'-'), hh @ .., ] if hh.len() == 5 && hh[2] == b':' => {
+        [sign @ (b'+' | b'-'), hh @ ..] if hh.len() == 5 && hh[2] == b':' => {
             let off = num(&hh[0..2])? * 3600 + num(&hh[3..5])? * 60;
             if *sign == b'+' { off } else { -off }
         }
@@ -93,7 +98,10 @@ pub fn median_step(times: &[f64]) -> Option<f64> {
         Some(upper)
     } else {
         // numpy.median averages the two middle values of an even count.
-        let lower = steps[..mid].iter().copied().fold(f64::NEG_INFINITY, f64::max);
+        let lower = steps[..mid]
+            .iter()
+            .copied()
+            .fold(f64::NEG_INFINITY, f64::max);
         Some(0.5 * (lower + upper))
     }
 }
@@ -130,7 +138,11 @@ pub fn find_gaps(times: &[f64], step: f64, factor: f64, first_row: usize) -> Vec
         .windows(2)
         .enumerate()
         .filter(|(_, w)| w[1] - w[0] > limit)
-        .map(|(i, w)| Gap { row: first_row + i + 1, start: w[0], length: w[1] - w[0] })
+        .map(|(i, w)| Gap {
+            row: first_row + i + 1,
+            start: w[0],
+            length: w[1] - w[0],
+        })
         .collect()
 }
 

@@ -10,7 +10,9 @@ pub(crate) fn analyse(log: &mut Log, rows: Option<&[usize]>, gap_factor: f64) {
     let base = first_data_row(log.format);
     let Some(t) = log.time.as_mut() else { return };
     let values = &t.channel.values;
-    let Some(step) = median_step(values) else { return };
+    let Some(step) = median_step(values) else {
+        return;
+    };
     t.step = step;
     if t.channel.unit.dimension() == Dimension::TIME {
         t.sample_rate_hz = 1.0 / (step * t.channel.unit.factor());

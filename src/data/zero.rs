@@ -104,7 +104,11 @@ pub fn remove_drift(
         });
     }
     let (za, zb) = (mean(&values[hold_a]), mean(&values[hold_b]));
-    let line = DriftLine { t_a: ta, at_a: za, slope: (zb - za) / (tb - ta) };
+    let line = DriftLine {
+        t_a: ta,
+        at_a: za,
+        slope: (zb - za) / (tb - ta),
+    };
     for (v, &t) in values.iter_mut().zip(times) {
         *v -= line.at(t);
     }
@@ -161,7 +165,10 @@ mod tests {
     #[test]
     fn drift_holds_average_to_zero_after_removal() {
         let t: Vec<f64> = (0..1000).map(|i| i as f64 * 0.01).collect();
-        let mut v: Vec<f64> = t.iter().map(|t| 3.0 - 0.02 * t + (t * 7.0).sin() * 1e-3).collect();
+        let mut v: Vec<f64> = t
+            .iter()
+            .map(|t| 3.0 - 0.02 * t + (t * 7.0).sin() * 1e-3)
+            .collect();
         remove_drift(&mut v, &t, 0..100, 900..1000).unwrap();
         assert!(mean(&v[0..100]).abs() < 1e-12);
         assert!(mean(&v[900..1000]).abs() < 1e-12);
