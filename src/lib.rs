@@ -91,9 +91,26 @@ pub use rosette::{
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
+// Figures (issue 6, feature `plot`).
+#[cfg(feature = "plot")]
+mod plot;
+#[cfg(feature = "plot")]
+pub use plot::{Axis, Panel, Plot, PlotError, base64_encode, histogram_bins};
+
 // Scripting: the Rhai surface, sessions, runner support (feature `script`).
 #[cfg(feature = "script")]
 pub mod script;
 
 #[cfg(feature = "cli")]
 pub mod cli;
+
+// Jupyter kernel (area: kernel).
+#[cfg(feature = "kernel")]
+mod kernel;
+#[cfg(feature = "kernel")]
+pub use kernel::{
+    Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
+    KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
+    run_kernel_with,
+    uninstall_kernelspec,
+};

@@ -5,7 +5,11 @@ mod calib;
 mod chain;
 mod common;
 mod gauge;
+#[cfg(feature = "kernel")]
+mod kernel;
 mod layout;
+#[cfg(feature = "plot")]
+mod plot;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;

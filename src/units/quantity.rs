@@ -174,6 +174,12 @@ impl Quantity {
             text: text.to_string(),
             reason: format!("`{num}` is not a number"),
         })?;
+        if !value.is_finite() {
+            return Err(UnitError::BadQuantity {
+                text: text.to_string(),
+                reason: format!("`{num}` is too large for a 64-bit float"),
+            });
+        }
         let unit = parse::parse_unit_in(text, i)?;
         Ok(Quantity::in_unit(value, Arc::new(unit)))
     }
@@ -625,6 +631,15 @@ mod tests {
             Quantity::parse(""),
             Err(UnitError::BadQuantity { .. })
         ));
+    }
+
+    #[test]
+    fn overflowing_numbers() {
+        let e = Quantity::parse("1e400 V").unwrap_err();
+        assert_eq!(
+            e.to_string(),
+            "cannot read `1e400 V` as a quantity: `1e400` is too large for a 64-bit float"
+        );
     }
 
     #[test]
