@@ -301,3 +301,44 @@ fn errors_for_bad_input() {
     assert!(rainflow_cycles(&[f64::INFINITY]).is_err());
     assert!(range_histogram(&[], 0.0).is_err());
 }
+
+mod properties {
+    use super::*;
+    use proptest::prelude::*;
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(64))]
+
+        #[test]
+        fn rainflow_counts_every_reversal_range_once(x in proptest::collection::vec(-1e3f64..1e3, 0..300)) {
+            // Identity of the three-point method (ASTM E1049-85 (2017) §5.4.4): each range between
+            // adjacent reversals is counted once as half a cycle, two halves making a full one,
+            // so the counts sum to (reversals − 1) / 2.
+            let r = reversals(&x).len();
+            let total: f64 = rainflow_cycles(&x).unwrap().iter().map(|c| c.count).sum();
+            prop_assert_eq!(total, r.saturating_sub(1) as f64 / 2.0);
+        }
+
+        #[test]
+        fn filtering_is_linear(a in proptest::collection::vec(-10f64..10.0, 50..200), k in -5f64..5.0) {
+            // Linearity of an LTI filter from a zero state: H(k·x) = k·H(x).
+            let f = design(true, 4, true, 100.0);
+            let y = f.filter(&a).unwrap();
+            let scaled: Vec<f64> = a.iter().map(|v| k * v).collect();
+            let ys = f.filter(&scaled).unwrap();
+            for (p, q) in ys.iter().zip(&y) {
+                prop_assert!((p - k * q).abs() <= 1e-12 * (1.0 + q.abs() * k.abs()));
+            }
+        }
+
+        #[test]
+        fn zero_phase_keeps_a_constant(c in -1e3f64..1e3, n in 40usize..300) {
+            // Odd extension and settled initial states make a constant pass unchanged.
+            let f = design(false, 3, true, 60.0);
+            let y = f.filter_zero_phase(&vec![c; n]).unwrap();
+            for v in y {
+                prop_assert!((v - c).abs() <= 1e-10 * (1.0 + c.abs()));
+            }
+        }
+    }
+}
