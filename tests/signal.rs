@@ -342,3 +342,57 @@ mod properties {
         }
     }
 }
+
+/// The script bindings (src/script/signal.rs) give what the Rust functions give.
+#[cfg(feature = "script")]
+mod script {
+    use super::*;
+    use gaugebook::script::{Session, SessionOptions};
+
+    fn run(code: &str) {
+        let mut s = Session::new(SessionOptions::default()).expect("session");
+        if let Err(e) = s.eval_cell(code, "signal test") {
+            panic!("{}", e.render());
+        }
+    }
+
+    #[test]
+    fn script_lowpass_matches_scipy_sosfilt() {
+        // scipy.signal.sosfilt(butter(4, 50, fs=1000, output="sos"), x) sample 7·10, scipy 1.17.1.
+        let x = r::test_signal();
+        let values: Vec<String> = x.iter().map(|v| format!("{v:?}")).collect();
+        run(&format!(
+            "let x = column([{}], \"mV/V\");\n\
+             let y = lowpass(x, #{{ cutoff: 50.0 * Hz, rate: 1000.0 * Hz, order: 4 }});\n\
+             assert_close(y[70].value(\"mV/V\"), {:?}, 1e-10);",
+            values.join(", "),
+            r::SOSFILT[0][10]
+        ));
+    }
+
+    #[test]
+    fn script_rainflow_and_stats() {
+        // ASTM E1049-85 (2017) Fig. 6 history (from memory); numpy.std([1, 2, 3, 4], ddof=1).
+        run(r#"
+            let c = rainflow(column([-2.0, 1.0, -3.0, 5.0, -1.0, 3.0, -4.0, 4.0, -2.0], "MPa"));
+            assert_close(c.cycles, 4.0, 1e-15);
+            let d = miner_damage(c, #{ range: 1.0 * MPa, cycles: 1e6, m: 3.0, endurance_limit: 5.0 * MPa });
+            assert_close(d, (0.5 * 216.0 + 512.0 + 0.5 * 729.0) / 1e6, 1e-12);
+            let s = stats(column([1.0, 2.0, 3.0, 4.0], "N"));
+            assert_close(s.std, q("1.2909944487358056 N"), 1e-14);
+            assert_close(s.rms, q("2.7386127875258306 N"), 1e-14);
+        "#);
+    }
+
+    #[test]
+    fn script_errors_are_catchable() {
+        run(r#"
+            let caught = 0;
+            try { lowpass(column([1.0, 2.0], "V"), #{ cutoff: 600.0 * Hz, rate: 1000.0 * Hz }); } catch (e) { caught += 1; }
+            try { lowpass(column([1.0, 2.0], "V"), #{ cutoff: 60.0 * Hz, rate: 1000.0 * Hz, design: "fast" }); } catch (e) { caught += 1; }
+            try { lowpass(column([1.0, 2.0], "V"), #{ cutof: 60.0 * Hz, rate: 1000.0 * Hz }); } catch (e) { caught += 1; }
+            try { stats(column([1.0], "V")); } catch (e) { caught += 1; }
+            assert_eq(caught, 4);
+        "#);
+    }
+}
