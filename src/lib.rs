@@ -91,6 +91,10 @@ pub use rosette::{
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
+// The embedded worked example behind `gaugebook demo`.
+mod demo;
+pub use demo::{DesignReport, ReportSection, bridge_design_demo};
+
 // Figures (issue 6, feature `plot`).
 #[cfg(feature = "plot")]
 mod plot;

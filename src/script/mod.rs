@@ -77,6 +77,7 @@ mod quantity;
 mod resolver;
 mod session;
 mod signal;
+mod spring;
 
 pub use column::Column;
 pub use doc::{FnDoc, reference_docs, reference_markdown};
