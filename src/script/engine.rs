@@ -23,6 +23,7 @@ const DOMAINS: &[fn(&mut Engine)] = &[
     super::doc::register,
     super::error::register,
     super::circuits::register,
+    super::signal::register,
     super::spring::register,
     // bridge::register, gauge::register, rosette::register, chain::register,
     // spring::register, layout::register, signal::register, calib::register,
