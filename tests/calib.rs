@@ -475,3 +475,30 @@ mod bad_input {
         assert!(f.inverse(f64::NAN).is_err());
     }
 }
+
+/// Inverse prediction uncertainty: for a straight line the first-order propagation equals the
+/// classical calibration formula u²(x) = s²/b² · (1/m + 1/n + (y − ȳ)²/(b² Sxx)) (Draper &
+/// Smith, Applied Regression Analysis, 3rd ed., §3.2, from memory), here on NIST StRD Norris.
+#[test]
+fn inverse_uncertainty_classical_formula() {
+    let x = [
+        0.2, 337.4, 118.2, 884.6, 10.1, 226.5, 666.3, 996.3, 448.6, 777.0, 558.2, 0.4, 0.6, 775.5,
+        666.9, 338.0, 447.5, 11.6, 556.0, 228.1, 995.8, 887.6, 120.2, 0.3, 0.3, 556.8, 339.1,
+        887.2, 999.0, 779.0, 11.1, 118.3, 229.2, 669.1, 448.9, 0.5,
+    ];
+    let y = [
+        0.1, 338.8, 118.1, 888.0, 9.2, 228.1, 668.5, 998.5, 449.1, 778.9, 559.2, 0.3, 0.1, 778.1,
+        668.8, 339.3, 448.9, 10.8, 557.7, 228.3, 998.0, 888.8, 119.6, 0.3, 0.6, 557.6, 339.3,
+        888.0, 998.5, 778.9, 10.2, 117.6, 228.9, 668.4, 449.2, 0.2,
+    ];
+    let f = Fit::new(&x, &y, FitModel::Linear).unwrap();
+    let (s, b, n, m) = (f.residual_sd(), f.coefficients()[1], x.len() as f64, 3.0_f64);
+    let ybar = y.iter().sum::<f64>() / n;
+    let xbar = x.iter().sum::<f64>() / n;
+    let sxx: f64 = x.iter().map(|v| (v - xbar).powi(2)).sum();
+    for &y0 in &[5.0, 500.0, 950.0] {
+        let (_, u) = f.inverse_with_uncertainty(y0, s / m.sqrt()).unwrap();
+        let want = (s / b) * (1.0 / m + 1.0 / n + (y0 - ybar).powi(2) / (b * b * sxx)).sqrt();
+        assert_close(u, want, 1e-9, 0.0);
+    }
+}
