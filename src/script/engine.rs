@@ -22,6 +22,7 @@ const DOMAINS: &[fn(&mut Engine)] = &[
     bind::register_record,
     super::doc::register,
     super::error::register,
+    super::signal::register,
     super::spring::register,
     super::calib::register,
     // bridge::register, gauge::register, rosette::register, chain::register,

@@ -77,6 +77,7 @@ mod output;
 mod quantity;
 mod resolver;
 mod session;
+mod signal;
 mod spring;
 
 pub use column::Column;
