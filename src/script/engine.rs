@@ -24,6 +24,7 @@ const DOMAINS: &[fn(&mut Engine)] = &[
     super::error::register,
     super::signal::register,
     super::spring::register,
+    super::calib::register,
     // bridge::register, gauge::register, rosette::register, chain::register,
     // spring::register, layout::register, signal::register, calib::register,
     // uncertainty::register, data::register (feature "data"), plot::register (feature "plot"),
