@@ -25,6 +25,7 @@ const DOMAINS: &[fn(&mut Engine)] = &[
     super::circuits::register,
     super::signal::register,
     super::spring::register,
+    super::calib::register,
     // bridge::register, gauge::register, rosette::register, chain::register,
     // spring::register, layout::register, signal::register, calib::register,
     // uncertainty::register, data::register (feature "data"), plot::register (feature "plot"),

@@ -65,6 +65,7 @@
 // Helpers for the domain binding files; some are used only once those land.
 #[allow(dead_code)]
 mod bind;
+mod calib;
 mod circuits;
 mod column;
 mod complete;
