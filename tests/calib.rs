@@ -517,6 +517,35 @@ mod stdlib_characterise {
     use gaugebook::script::{Session, SessionOptions};
 
     #[test]
+    fn bad_script_input_is_a_clear_error() {
+        let mut s = Session::new(SessionOptions::default()).expect("session");
+        let cases = [
+            (
+                r#"calibration_run(column([0.0, 1.0], "V"), column([0.0, 1.0], "mV/V"), "ascending")"#,
+                "loads must be forces (N) or torques (N·m)",
+            ),
+            (
+                r#"calibration_run(column([0.0, 2.0, 1.0], "kN"), column([0.0, 1.0, 2.0], "mV/V"), "ascending")"#,
+                "strictly increasing loads in an ascending series",
+            ),
+            (
+                r#"calibration_run(column([0.0, 1.0], "kN"), column([0.0, 1.0], "mV/V"), "sideways")"#,
+                "direction must be",
+            ),
+            (
+                r#"gum([#{ name: "a", value: 1.0 * N, u: 0.1 * V }], |x| x[0], #{})"#,
+                "must have the unit of its value",
+            ),
+        ];
+        for (code, want) in cases {
+            match s.eval_cell(code, "bad") {
+                Ok(out) => panic!("expected an error for {code}, got {:?}", out.value),
+                Err(e) => assert!(e.render().contains(want), "{}", e.render()),
+            }
+        }
+    }
+
+    #[test]
     fn log_to_characterisation_and_verdict() {
         let mut s = Session::new(SessionOptions::default()).expect("session");
         let code = r#"
