@@ -103,3 +103,13 @@ pub mod script;
 
 #[cfg(feature = "cli")]
 pub mod cli;
+
+// Headless notebooks: run, provenance, verify (issue 8, feature `script`).
+#[cfg(feature = "script")]
+mod notebook;
+#[cfg(feature = "script")]
+pub use notebook::{
+    Cell, CellKind, Drift, DriftKind, Notebook, NotebookError, NumberChange, Output, Provenance,
+    RunOptions, VerifyOptions, VerifyReport, file_hash, rhai_version, run_notebook,
+    verify_notebook,
+};

@@ -6,6 +6,8 @@ mod chain;
 mod common;
 mod gauge;
 mod layout;
+#[cfg(feature = "script")]
+mod notebook;
 #[cfg(feature = "plot")]
 mod plot;
 mod rosette;
