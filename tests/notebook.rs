@@ -590,3 +590,42 @@ fn written_notebook_has_the_nbformat_45_shape() {
     check_nbformat_45(&v);
     assert_eq!(v["cells"][2]["outputs"][0]["output_type"], "error");
 }
+
+/// The same file through the reference validator, the `nbformat` package (PyPI) in
+/// `target/nbformat-venv` when a developer has made one (`python3 -m venv
+/// target/nbformat-venv && target/nbformat-venv/bin/pip install nbformat`); skipped otherwise,
+/// so CI does not depend on it.
+#[test]
+fn written_notebook_passes_the_nbformat_validator_when_present() {
+    let python = Path::new(env!("CARGO_MANIFEST_DIR")).join("target/nbformat-venv/bin/python");
+    if !python.is_file() {
+        eprintln!("skipped: no {}", python.display());
+        return;
+    }
+    let (_dir, path) = setup("validator");
+    let mut v = read_json(&path);
+    v["cells"][2]["source"] = json!("r0 + 5.0 * V");
+    write_json(&path, &v);
+    run_notebook(
+        &path,
+        &RunOptions {
+            allow_errors: true,
+            ..Default::default()
+        },
+    )
+    .unwrap();
+    let script = "import json, sys, nbformat\n\
+                  nb = json.load(open(sys.argv[1], encoding='utf-8'))\n\
+                  nbformat.validate(nb, version=4, version_minor=5)\n\
+                  print(nbformat.__version__)";
+    let out = std::process::Command::new(&python)
+        .args(["-c", script])
+        .arg(&path)
+        .output()
+        .unwrap();
+    assert!(
+        out.status.success(),
+        "nbformat.validate refused the file:\n{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+}

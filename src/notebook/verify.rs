@@ -418,7 +418,7 @@ impl fmt::Display for Drift {
                 write!(f, ": {what}: {} number(s) beyond tolerance", changes.len())?;
                 for c in changes.iter().take(NUMBERS_SHOWN) {
                     let rel = match c.relative {
-                        Some(r) => format!("{:+.3e}", r),
+                        Some(r) => format!("{r:+.3e}"),
                         None => "from zero".to_string(),
                     };
                     let at = if c.context.is_empty() {
