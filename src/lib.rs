@@ -91,6 +91,10 @@ pub use rosette::{
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
+// The embedded worked example behind `gaugebook demo`.
+mod demo;
+pub use demo::{DesignReport, ReportSection, bridge_design_demo};
+
 // Figures (issue 6, feature `plot`).
 #[cfg(feature = "plot")]
 mod plot;
@@ -103,6 +107,17 @@ pub mod script;
 
 #[cfg(feature = "cli")]
 pub mod cli;
+
+// Jupyter kernel (area: kernel).
+#[cfg(feature = "kernel")]
+mod kernel;
+#[cfg(feature = "kernel")]
+pub use kernel::{
+    Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
+    KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
+    run_kernel_with,
+    uninstall_kernelspec,
+};
 
 // Headless notebooks: run, provenance, verify (issue 8, feature `script`).
 #[cfg(feature = "script")]

@@ -399,3 +399,40 @@ fn default_cross_talk_basis_uses_the_element_length() {
     assert_close(b.get(LoadComponent::Fz), 1000.0, 1e-12, 0.0);
     let _ = l.element().kind();
 }
+
+#[test]
+fn solver_finds_the_closed_form_depth_and_refuses_an_overstressed_one() {
+    // Full bending bridge, K_t = 0: Vo/V = F·6P(L − x)/(E·b·h²) (flexure formula, Timoshenko &
+    // Gere 4th ed. §5.5, from memory), so h = √(6·F·P·(L − x)/(E·b·r)) for a target r.
+    use gaugebook::{DesignCriteria, OutputRatio, PhysicsError, solve_for_rated_output};
+    let m = material("2024-T351").unwrap();
+    let e = m.youngs_modulus().get::<pascal>();
+    let gauge = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0).unwrap();
+    let build = |h: f64| {
+        let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(h), mm(30.0))?;
+        Layout::standard(beam, &gauge, Arrangement::FullBending, 50.0)
+    };
+    let target = 1.5e-3;
+    let p = solve_for_rated_output(
+        3.0,
+        10.0,
+        OutputRatio::new(target),
+        build,
+        &DesignCriteria::default(),
+    )
+    .unwrap();
+    let h = (6.0 * 2.0 * 50.0 * 0.07 / (e * 0.02 * target)).sqrt() * 1e3;
+    assert_close(p.parameters[0], h, 1e-9, 0.0);
+    // 6 mV/V needs ε = 3000 µε, σ ≈ 219 MPa at rated, 329 MPa at 150 %: beyond the 324 MPa
+    // yield of the table's 2024-T351, so the solver says no.
+    let e = solve_for_rated_output(
+        1.0,
+        10.0,
+        OutputRatio::from_mv_per_v(6.0),
+        build,
+        &DesignCriteria::default(),
+    )
+    .unwrap_err();
+    assert!(matches!(e, PhysicsError::NoSolution { .. }), "{e}");
+    assert!(e.to_string().contains("yield factor"), "{e}");
+}

@@ -5,6 +5,8 @@ mod calib;
 mod chain;
 mod common;
 mod gauge;
+#[cfg(feature = "kernel")]
+mod kernel;
 mod layout;
 #[cfg(feature = "script")]
 mod notebook;

@@ -6,6 +6,9 @@ use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
 
+// Jupyter kernel subcommand (area: kernel).
+mod kernel;
+
 /// Gaugebook: strain-gauge transducer design and test-data reanalysis.
 #[derive(Parser, Debug)]
 #[command(name = "gaugebook", version, about)]
@@ -18,6 +21,11 @@ struct Args {
 enum Command {
     /// Run the main job on an embedded example and print the results.
     Demo,
+    /// Serve the Jupyter kernel, or install / remove its kernelspec.
+    Kernel {
+        #[command(subcommand)]
+        command: kernel::KernelCommand,
+    },
     /// Headless notebooks: run one and write its outputs, or verify its recorded outputs.
     Nb {
         #[command(subcommand)]
@@ -30,7 +38,8 @@ enum Command {
 pub fn main() -> ExitCode {
     let args = Args::parse();
     let result: anyhow::Result<()> = match args.command {
-        Command::Demo => Ok(()),
+        Command::Demo => demo(),
+        Command::Kernel { command } => kernel::kernel(command).map(|_| ()),
         Command::Nb { command } => nb(command),
     };
     match result {
@@ -40,6 +49,17 @@ pub fn main() -> ExitCode {
             ExitCode::FAILURE
         }
     }
+}
+
+/// Prints the embedded worked design.
+fn demo() -> anyhow::Result<()> {
+    let report = gaugebook_demo()?;
+    println!("{report}");
+    Ok(())
+}
+
+fn gaugebook_demo() -> anyhow::Result<crate::DesignReport> {
+    Ok(crate::bridge_design_demo()?)
 }
 
 // ---- Headless notebooks (issue 8): `nb run`, `nb verify` ----

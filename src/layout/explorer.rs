@@ -39,6 +39,19 @@ pub struct BridgeWiring {
 
 impl BridgeWiring {
     /// How many gauges the bridge uses.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let w = &l.bridges()[0];
+    /// assert_eq!(w.gauge_count(), 4);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn gauge_count(&self) -> usize {
         self.arms.iter().map(Vec::len).sum()
     }
@@ -125,6 +138,19 @@ impl Layout {
     }
 
     /// The same layout with a full rated wrench (for elements rated under combined load).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let l = l.with_capacity_load(Wrench::only(LoadComponent::Fz, 40.0).with(LoadComponent::Fx, 5.0));
+    /// assert_eq!(l.capacity().get(LoadComponent::Fx), 5.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn with_capacity_load(mut self, rated: Wrench) -> Layout {
         self.capacity = rated;
         self
@@ -132,6 +158,21 @@ impl Layout {
 
     /// The same layout with another reference temperature (where the zero and span are
     /// referred to).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// use gaugebook::units::ThermodynamicTemperature;
+    /// use uom::si::thermodynamic_temperature::degree_celsius;
+    /// let l = l.with_reference_temperature(ThermodynamicTemperature::new::<degree_celsius>(23.0));
+    /// assert!((l.reference_temperature().get::<degree_celsius>() - 23.0).abs() < 1e-9);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn with_reference_temperature(mut self, t: ThermodynamicTemperature) -> Layout {
         self.reference = t;
         self
@@ -233,31 +274,108 @@ impl Layout {
     }
 
     /// The element.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// assert_eq!(l.element().kind(), "cantilever bending beam");
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn element(&self) -> &dyn SpringElement {
         self.element.as_ref()
     }
 
     /// The rated load.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// assert_eq!(l.capacity().get(LoadComponent::Fz), 50.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn capacity(&self) -> Wrench {
         self.capacity
     }
 
     /// The reference temperature.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// use uom::si::thermodynamic_temperature::degree_celsius;
+    /// assert!((l.reference_temperature().get::<degree_celsius>() - 20.0).abs() < 1e-9);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn reference_temperature(&self) -> ThermodynamicTemperature {
         self.reference
     }
 
     /// The placed gauges.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// assert_eq!(l.placements().len(), 4);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn placements(&self) -> &[Placement] {
         &self.placements
     }
 
     /// The bridges.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// assert_eq!(l.bridges()[0].name, "full-bending");
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn bridges(&self) -> &[BridgeWiring] {
         &self.bridges
     }
 
     /// The same layout with placement `index` replaced (for tolerance studies).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// use gaugebook::units::Angle;
+    /// use uom::si::angle::degree;
+    /// let p = l.placements()[0].displaced(Angle::new::<degree>(3.0), mm(0.0), mm(0.0));
+    /// let moved = l.with_placement(0, p)?;
+    /// assert!(moved.report(0)?.rated_output < l.report(0)?.rated_output);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn with_placement(
         &self,
         index: usize,
@@ -391,6 +509,19 @@ impl Layout {
     }
 
     /// The exact output ratio of bridge `bridge` under `load` at temperature `t`.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let r = l.output(0, &Wrench::only(LoadComponent::Fz, 50.0), l.reference_temperature())?;
+    /// assert!(r.mv_per_v() > 1.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn output(
         &self,
         bridge: usize,
@@ -403,6 +534,22 @@ impl Layout {
     /// The linearised output (small-signal, about the unstrained bridge) under `load` at the
     /// reference temperature: Σ ∂(Vo/V)/∂xᵢ · xᵢ with ∂/∂x₁ = R₁R₂/(R₁+R₂)², ∂/∂x₂ = −R₁R₂/(R₁+R₂)²,
     /// ∂/∂x₃ = R₃R₄/(R₃+R₄)², ∂/∂x₄ = −R₃R₄/(R₃+R₄)² (derivatives of the bridge equation).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let w = Wrench::only(LoadComponent::Fz, 50.0);
+    /// let lin = l.linear_output(0, &w)?;
+    /// let exact = l.output(0, &w, l.reference_temperature())?;
+    /// // A full bending bridge is exactly linear.
+    /// assert!((lin - exact).value().abs() < 1e-15);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn linear_output(&self, bridge: usize, load: &Wrench) -> Result<OutputRatio, PhysicsError> {
         let w = self.wiring(bridge)?;
         let zero = self.arm_changes(w, &Wrench::zero(), self.reference)?;
@@ -425,6 +572,18 @@ impl Layout {
     }
 
     /// The primary load component.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// assert_eq!(l.primary(), LoadComponent::Fz);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn primary(&self) -> LoadComponent {
         self.element.primary()
     }

@@ -56,6 +56,21 @@ pub struct Placement {
 
 impl Placement {
     /// A gauge at `site` with its grid at `angle`.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// use gaugebook::{Face, Placement, Site};
+    /// use gaugebook::units::Angle;
+    /// let p = Placement::new("X", g, Site::new("top", Face::PlusZ, mm(30.0)), Angle::default());
+    /// assert!(p.thermal_output_expansion.is_none());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(label: impl Into<String>, gauge: Gauge, site: Site, angle: Angle) -> Placement {
         Placement {
             label: label.into(),
@@ -107,6 +122,20 @@ impl Placement {
 
     /// The strain tensor averaged over the grid length along the grid's direction (five-point
     /// Gauss–Legendre; a point value when the gauge has no grid length).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let p = &l.placements()[0];
+    /// let s = p.averaged_strain(l.element(), &Wrench::only(LoadComponent::Fz, 10.0))?;
+    /// assert!(s.exx.value() > 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn averaged_strain(
         &self,
         element: &dyn SpringElement,
@@ -159,6 +188,28 @@ impl Placement {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn gauss_rule_matches_numpy() {
+        // numpy 2.4.6, numpy.polynomial.legendre.leggauss(5), printed as float().
+        let x = [
+            -0.906179845938664,
+            -0.5384693101056831,
+            0.0,
+            0.5384693101056831,
+            0.906179845938664,
+        ];
+        let w = [
+            0.23692688505618928,
+            0.4786286704993663,
+            0.5688888888888887,
+            0.4786286704993663,
+            0.23692688505618928,
+        ];
+        for (k, (node, weight)) in GAUSS5.iter().enumerate() {
+            assert!((node - x[k]).abs() < 1e-14 && (weight - w[k]).abs() < 1e-14);
+        }
+    }
 
     #[test]
     fn gauss_rule_integrates_polynomials_exactly() {

@@ -20,6 +20,19 @@ const DT: f64 = 0.5;
 const SCAN: usize = 100;
 
 /// One bridge's answers (see [`Layout::report`]). Design estimates must be proven by test.
+///
+/// ```
+/// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+/// # use gaugebook::units::{ElectricalResistance, Length};
+/// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+/// # let mm = Length::new::<millimeter>;
+/// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+/// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+/// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+/// let r = l.report(0)?;
+/// assert!(r.to_string().contains("rated output"));
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Debug, Clone, PartialEq)]
 pub struct BridgeReport {
     /// The bridge's name.
@@ -140,6 +153,20 @@ impl Layout {
     /// moments equal to capacity × element length; for a moment-rated one, moments equal to the
     /// capacity and forces equal to capacity / length (common practice for comparing off-axis
     /// loads of a similar size).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let b = l.default_cross_talk_basis();
+    /// // 50 N capacity on a 100 mm beam: moments of 5 N·m.
+    /// assert!((b.get(LoadComponent::My) - 5.0).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn default_cross_talk_basis(&self) -> Wrench {
         let c = self.capacity().get(self.primary()).abs();
         let l = self.element().length().get::<meter>();
@@ -157,6 +184,19 @@ impl Layout {
 
     /// The linear response of bridge `bridge` to one unit of each load component (V/V per N or
     /// per N·m).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let s = l.per_load(0)?;
+    /// assert!(s[LoadComponent::Fz.index()] > 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn per_load(&self, bridge: usize) -> Result<[f64; 6], PhysicsError> {
         let mut out = [0.0; 6];
         for c in LoadComponent::ALL {
@@ -166,6 +206,19 @@ impl Layout {
     }
 
     /// The report of bridge `bridge` with the default cross-talk basis.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let r = l.report(0)?;
+    /// assert!(r.endpoint_nonlinearity.abs() < 1e-9);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn report(&self, bridge: usize) -> Result<BridgeReport, PhysicsError> {
         self.report_with(bridge, &self.default_cross_talk_basis())
     }
@@ -244,6 +297,20 @@ impl Layout {
     }
 
     /// The response matrix of every bridge.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// let m = l.response_matrix()?;
+    /// assert_eq!(m.per_load.len(), 1);
+    /// assert!(m.per_kelvin[0].abs() < 1e-15);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn response_matrix(&self) -> Result<ResponseMatrix, PhysicsError> {
         let mut m = ResponseMatrix {
             bridges: vec![],

@@ -37,6 +37,22 @@ impl fmt::Display for PlacementError {
 }
 
 /// One gauge, one error: the change in rated output and cross-talk.
+///
+/// ```
+/// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+/// # use gaugebook::units::{ElectricalResistance, Length};
+/// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+/// # let mm = Length::new::<millimeter>;
+/// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+/// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+/// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+/// use gaugebook::units::Angle;
+/// use uom::si::angle::degree;
+/// let t = l.placement_sensitivity(0, Angle::new::<degree>(1.0), mm(0.2))?;
+/// let worst = &t.rows[0];
+/// assert!(worst.worst >= worst.rated_output_change.abs());
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Debug, Clone, PartialEq)]
 pub struct SensitivityRow {
     /// The gauge's label.
@@ -114,6 +130,23 @@ impl Layout {
     /// across the surface, one error at a time, and tabulates the change in the linear response.
     /// The change for an error of the opposite sign is the negative of a first-order change; see
     /// the tests for the small-angle identity it follows.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, Length};
+    /// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+    /// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+    /// use gaugebook::{PlacementError, units::Angle};
+    /// use uom::si::angle::degree;
+    /// let t = l.placement_sensitivity(0, Angle::new::<degree>(2.0), mm(0.5))?;
+    /// // Moving a grid 0.5 mm along a 70 mm lever changes that gauge's strain by 0.5/70.
+    /// let axial = t.rows.iter().find(|r| r.error == PlacementError::Axial).unwrap();
+    /// assert!((axial.rated_output_change.abs() - 100.0 * 0.5 / 70.0 / 4.0).abs() < 1e-6);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn placement_sensitivity(
         &self,
         bridge: usize,

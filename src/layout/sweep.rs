@@ -54,6 +54,20 @@ impl Default for DesignCriteria {
 }
 
 /// One evaluated design.
+///
+/// ```
+/// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+/// # use gaugebook::units::{ElectricalResistance, Length};
+/// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+/// # let mm = Length::new::<millimeter>;
+/// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+/// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+/// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+/// use gaugebook::{DesignCriteria, DesignPoint};
+/// let p = DesignPoint::evaluate(&l, &DesignCriteria::default(), vec![])?;
+/// assert!(p.yield_factor > 1.0);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Debug, Clone, PartialEq)]
 pub struct DesignPoint {
     /// The parameter values.
@@ -118,6 +132,20 @@ impl DesignPoint {
 }
 
 /// A table of designs over a parameter sweep, with the points the models refused.
+///
+/// ```
+/// # use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
+/// # use gaugebook::units::{ElectricalResistance, Length};
+/// # use uom::si::{electrical_resistance::ohm, length::millimeter};
+/// # let mm = Length::new::<millimeter>;
+/// # let beam = Cantilever::new(material("2024-T351")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?;
+/// # let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)?;
+/// # let l = Layout::standard(beam, &g, Arrangement::FullBending, 50.0)?;
+/// use gaugebook::{DesignCriteria, sweep};
+/// let t = sweep("x", &[1.0], |_| Ok(l.clone()), &DesignCriteria::default());
+/// assert!(t.to_string().contains("proven by test"));
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Debug, Clone, PartialEq)]
 pub struct SweepTable {
     /// The parameters' names, as given.

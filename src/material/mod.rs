@@ -172,6 +172,11 @@ impl Material {
     }
 
     /// The temperature coefficient of Young's modulus (zero unless set).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::material("7075-T6")?.modulus_tc().get::<uom::si::temperature_coefficient::per_kelvin>(), 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn modulus_tc(&self) -> TemperatureCoefficient {
         self.modulus_tc
     }

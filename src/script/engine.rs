@@ -22,6 +22,7 @@ const DOMAINS: &[fn(&mut Engine)] = &[
     bind::register_record,
     super::doc::register,
     super::error::register,
+    super::spring::register,
     // bridge::register, gauge::register, rosette::register, chain::register,
     // spring::register, layout::register, signal::register, calib::register,
     // uncertainty::register, data::register (feature "data"), plot::register (feature "plot"),

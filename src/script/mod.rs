@@ -76,6 +76,7 @@ mod output;
 mod quantity;
 mod resolver;
 mod session;
+mod spring;
 
 pub use column::Column;
 pub use doc::{FnDoc, reference_docs, reference_markdown};

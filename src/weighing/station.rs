@@ -15,9 +15,19 @@ use crate::units::{Acceleration, ElectricPotential, Mass};
 
 /// Standard acceleration of gravity, 9.806 65 m/s², a defined value (3rd CGPM, 1901; SI
 /// Brochure, 9th ed., 2019). A station uses its local g where it is known.
+///
+/// ```
+/// assert_eq!(gaugebook::STANDARD_GRAVITY, 9.80665);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 pub const STANDARD_GRAVITY: f64 = 9.806_65;
 
 /// The caution attached to every check-weighing result.
+///
+/// ```
+/// assert!(gaugebook::WEIGHING_CAUTION.contains("legal-for-trade"));
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 pub const WEIGHING_CAUTION: &str = "design estimates must be proven by test; legal-for-trade \
 use follows local codes and licensed practice";
 
@@ -76,6 +86,23 @@ impl CheckWeigher {
     /// A station on bridge `bridge` of `layout`. Errors: non-positive target or tolerances,
     /// negative tare, a heaviest accepted load beyond the layout's capacity, or a load that
     /// pushes the element against its rated direction.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, ArmId, CheckWeigher, Gauge, Layout, LoadComponent, Parallelogram, TrimKind, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, ElectricPotential, Length, Mass};
+    /// # use uom::si::{electric_potential::volt, electrical_resistance::ohm, length::millimeter, mass::gram};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let cell = Parallelogram::new(material("2024-T351")?, mm(40.0), mm(20.0), mm(1.6), mm(24.0), mm(6.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(1000.0), 2.0)?;
+    /// # let layout = Layout::standard(cell, &g, Arrangement::FullBending, 49.0)?;
+    /// # let s = CheckWeigher::new(layout.clone(), 0, Wrench::only(LoadComponent::Fz, 1.0), Mass::new::<gram>(1200.0),
+    /// #     Mass::new::<gram>(750.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0))?;
+    /// // 4.5 kg of jar on a 1.2 kg tray overloads a 5 kg cell.
+    /// let too_much = CheckWeigher::new(layout, 0, Wrench::only(LoadComponent::Fz, 1.0),
+    ///     Mass::new::<gram>(1200.0), Mass::new::<gram>(4500.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0));
+    /// assert!(too_much.is_err());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(
         layout: Layout,
         bridge: usize,
@@ -173,6 +200,20 @@ impl CheckWeigher {
     }
 
     /// The same station trimmed in `arm`, with whichever kind (series or parallel) balances it.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, ArmId, CheckWeigher, Gauge, Layout, LoadComponent, Parallelogram, TrimKind, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, ElectricPotential, Length, Mass};
+    /// # use uom::si::{electric_potential::volt, electrical_resistance::ohm, length::millimeter, mass::gram};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let cell = Parallelogram::new(material("2024-T351")?, mm(40.0), mm(20.0), mm(1.6), mm(24.0), mm(6.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(1000.0), 2.0)?;
+    /// # let layout = Layout::standard(cell, &g, Arrangement::FullBending, 49.0)?;
+    /// # let s = CheckWeigher::new(layout.clone(), 0, Wrench::only(LoadComponent::Fz, 1.0), Mass::new::<gram>(1200.0),
+    /// #     Mass::new::<gram>(750.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0))?;
+    /// assert_eq!(s.with_trim_arm(ArmId::R2).evaluate()?.trim_arm, ArmId::R2);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn with_trim_arm(mut self, arm: ArmId) -> CheckWeigher {
         self.trim_arm = arm;
         self.trim_kind = None;
@@ -181,6 +222,21 @@ impl CheckWeigher {
 
     /// The same station trimmed in `arm` with a trim of `kind` (an error at evaluation when that
     /// kind cannot balance that arm).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, ArmId, CheckWeigher, Gauge, Layout, LoadComponent, Parallelogram, TrimKind, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, ElectricPotential, Length, Mass};
+    /// # use uom::si::{electric_potential::volt, electrical_resistance::ohm, length::millimeter, mass::gram};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let cell = Parallelogram::new(material("2024-T351")?, mm(40.0), mm(20.0), mm(1.6), mm(24.0), mm(6.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(1000.0), 2.0)?;
+    /// # let layout = Layout::standard(cell, &g, Arrangement::FullBending, 49.0)?;
+    /// # let s = CheckWeigher::new(layout.clone(), 0, Wrench::only(LoadComponent::Fz, 1.0), Mass::new::<gram>(1200.0),
+    /// #     Mass::new::<gram>(750.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0))?;
+    /// assert!(s.clone().with_trim(ArmId::R4, TrimKind::Series).evaluate().is_ok());
+    /// assert!(s.with_trim(ArmId::R4, TrimKind::Parallel).evaluate().is_err());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn with_trim(mut self, arm: ArmId, kind: TrimKind) -> CheckWeigher {
         self.trim_arm = arm;
         self.trim_kind = Some(kind);
@@ -189,6 +245,21 @@ impl CheckWeigher {
 
     /// The same station with the signal chain required to resolve `fraction` of the tightest
     /// tolerance (default 0.1, common practice).
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, ArmId, CheckWeigher, Gauge, Layout, LoadComponent, Parallelogram, TrimKind, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, ElectricPotential, Length, Mass};
+    /// # use uom::si::{electric_potential::volt, electrical_resistance::ohm, length::millimeter, mass::gram};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let cell = Parallelogram::new(material("2024-T351")?, mm(40.0), mm(20.0), mm(1.6), mm(24.0), mm(6.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(1000.0), 2.0)?;
+    /// # let layout = Layout::standard(cell, &g, Arrangement::FullBending, 49.0)?;
+    /// # let s = CheckWeigher::new(layout.clone(), 0, Wrench::only(LoadComponent::Fz, 1.0), Mass::new::<gram>(1200.0),
+    /// #     Mass::new::<gram>(750.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0))?;
+    /// let w = s.with_resolution_fraction(0.2)?.evaluate()?;
+    /// assert!((w.resolution_mass.get::<gram>() - 1.0).abs() < 1e-9);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn with_resolution_fraction(mut self, fraction: f64) -> Result<CheckWeigher, PhysicsError> {
         let f = check_positive("resolution fraction", fraction, "")?;
         if f > 1.0 {
@@ -226,6 +297,21 @@ impl CheckWeigher {
 
     /// Balances the bridge at the target and reads off the accept band and the resolution
     /// needed.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, ArmId, CheckWeigher, Gauge, Layout, LoadComponent, Parallelogram, TrimKind, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, ElectricPotential, Length, Mass};
+    /// # use uom::si::{electric_potential::volt, electrical_resistance::ohm, length::millimeter, mass::gram};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let cell = Parallelogram::new(material("2024-T351")?, mm(40.0), mm(20.0), mm(1.6), mm(24.0), mm(6.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(1000.0), 2.0)?;
+    /// # let layout = Layout::standard(cell, &g, Arrangement::FullBending, 49.0)?;
+    /// # let s = CheckWeigher::new(layout.clone(), 0, Wrench::only(LoadComponent::Fz, 1.0), Mass::new::<gram>(1200.0),
+    /// #     Mass::new::<gram>(750.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0))?;
+    /// let w = s.evaluate()?;
+    /// assert!(w.accept_low.value() < 0.0 && w.accept_high.value() > 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn evaluate(&self) -> Result<CheckWeighing, PhysicsError> {
         let trim = self.trim()?;
         let h = 0.1 * self.below.min(self.above);
@@ -261,6 +347,21 @@ impl CheckWeigher {
 }
 
 /// What a check-weighing station needs and gives (see [`CheckWeigher::evaluate`]).
+///
+/// ```
+/// # use gaugebook::{Arrangement, ArmId, CheckWeigher, Gauge, Layout, LoadComponent, Parallelogram, TrimKind, Wrench, material};
+/// # use gaugebook::units::{ElectricalResistance, ElectricPotential, Length, Mass};
+/// # use uom::si::{electric_potential::volt, electrical_resistance::ohm, length::millimeter, mass::gram};
+/// # let mm = Length::new::<millimeter>;
+/// # let cell = Parallelogram::new(material("2024-T351")?, mm(40.0), mm(20.0), mm(1.6), mm(24.0), mm(6.0))?;
+/// # let g = Gauge::new(ElectricalResistance::new::<ohm>(1000.0), 2.0)?;
+/// # let layout = Layout::standard(cell, &g, Arrangement::FullBending, 49.0)?;
+/// # let s = CheckWeigher::new(layout.clone(), 0, Wrench::only(LoadComponent::Fz, 1.0), Mass::new::<gram>(1200.0),
+/// #     Mass::new::<gram>(750.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0))?;
+/// let w = s.evaluate()?;
+/// assert!((w.resolution_mass.get::<gram>() - 0.5).abs() < 1e-9);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Debug, Clone, PartialEq)]
 pub struct CheckWeighing {
     /// The arm carrying the trim.
@@ -289,6 +390,22 @@ pub struct CheckWeighing {
 
 impl CheckWeighing {
     /// The resolution as a voltage at bridge excitation `excitation`.
+    ///
+    /// ```
+    /// # use gaugebook::{Arrangement, ArmId, CheckWeigher, Gauge, Layout, LoadComponent, Parallelogram, TrimKind, Wrench, material};
+    /// # use gaugebook::units::{ElectricalResistance, ElectricPotential, Length, Mass};
+    /// # use uom::si::{electric_potential::volt, electrical_resistance::ohm, length::millimeter, mass::gram};
+    /// # let mm = Length::new::<millimeter>;
+    /// # let cell = Parallelogram::new(material("2024-T351")?, mm(40.0), mm(20.0), mm(1.6), mm(24.0), mm(6.0))?;
+    /// # let g = Gauge::new(ElectricalResistance::new::<ohm>(1000.0), 2.0)?;
+    /// # let layout = Layout::standard(cell, &g, Arrangement::FullBending, 49.0)?;
+    /// # let s = CheckWeigher::new(layout.clone(), 0, Wrench::only(LoadComponent::Fz, 1.0), Mass::new::<gram>(1200.0),
+    /// #     Mass::new::<gram>(750.0), Mass::new::<gram>(5.0), Mass::new::<gram>(15.0))?;
+    /// let w = s.evaluate()?;
+    /// let v = w.resolution_voltage(ElectricPotential::new::<volt>(5.0))?;
+    /// assert!((v.get::<volt>() - 5.0 * w.resolution.value()).abs() < 1e-18);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn resolution_voltage(
         &self,
         excitation: ElectricPotential,
