@@ -39,6 +39,10 @@ pub struct Notebook {
 }
 
 /// The kind of a cell.
+///
+/// ```
+/// assert_eq!(gaugebook::Cell::code("a", "1").kind, gaugebook::CellKind::Code);
+/// ```
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum CellKind {
     /// Script code, executed in order.
@@ -76,7 +80,12 @@ pub struct Cell {
 }
 
 impl Cell {
-    /// A code cell with no outputs.
+    /// A code cell with no outputs, not yet run.
+    ///
+    /// ```
+    /// let c = gaugebook::Cell::code("a", "1 + 1");
+    /// assert_eq!((c.source.as_str(), c.execution_count), ("1 + 1", None));
+    /// ```
     pub fn code(id: impl Into<String>, source: impl Into<String>) -> Cell {
         Cell {
             id: id.into(),
@@ -135,6 +144,11 @@ pub enum Output {
 
 impl Output {
     /// The nbformat `output_type` name.
+    ///
+    /// ```
+    /// let e = gaugebook::Output::Error { ename: "UnitError".into(), evalue: "x".into(), traceback: vec![] };
+    /// assert_eq!(e.output_type(), "error");
+    /// ```
     pub fn output_type(&self) -> &'static str {
         match self {
             Output::Stream { .. } => "stream",
@@ -208,6 +222,11 @@ impl Notebook {
 
     /// The notebook as nbformat 4.5 JSON text (sorted keys, two-space indent,
     /// trailing newline). Cells without a valid, unique id get one.
+    ///
+    /// ```
+    /// let nb = gaugebook::Notebook { cells: vec![gaugebook::Cell::code("", "1")], metadata: Default::default() };
+    /// assert!(nb.to_json_string().contains("\"id\": \"cell-1\""));
+    /// ```
     pub fn to_json_string(&self) -> String {
         let mut seen = HashSet::new();
         let cells: Vec<Value> = self

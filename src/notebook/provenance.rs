@@ -54,6 +54,11 @@ pub struct Provenance {
 
 impl Provenance {
     /// This build's versions with the given input hashes.
+    ///
+    /// ```
+    /// let p = gaugebook::Provenance::current([("a.csv".to_string(), "sha256:00".to_string())].into());
+    /// assert_eq!(p.rhai, gaugebook::rhai_version());
+    /// ```
     pub fn current(inputs: BTreeMap<String, String>) -> Provenance {
         Provenance {
             gaugebook: env!("CARGO_PKG_VERSION").to_string(),
@@ -91,6 +96,13 @@ impl Provenance {
 
     /// Stores itself in notebook metadata under `gaugebook`, keeping other keys there (such as
     /// `rtol` and `atol`).
+    ///
+    /// ```
+    /// let mut meta = serde_json::json!({"gaugebook": {"rtol": 1e-3}}).as_object().unwrap().clone();
+    /// gaugebook::Provenance::current(Default::default()).store(&mut meta);
+    /// assert_eq!(meta["gaugebook"]["rtol"], 1e-3);
+    /// assert_eq!(meta["gaugebook"]["version"], env!("CARGO_PKG_VERSION"));
+    /// ```
     pub fn store(&self, metadata: &mut Map<String, Value>) {
         let entry = metadata
             .entry("gaugebook")

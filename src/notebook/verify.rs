@@ -45,6 +45,12 @@ impl Default for VerifyOptions {
 }
 
 /// One number that moved beyond its tolerance.
+///
+/// ```
+/// let c = gaugebook::NumberChange { context: "span".into(), old: "2".into(), new: "2.1".into(),
+///     relative: Some(0.05) };
+/// assert_eq!(c.relative, Some(0.05));
+/// ```
 #[derive(Clone, Debug, PartialEq)]
 pub struct NumberChange {
     /// The text just before the number on its line, to say which it is.
@@ -58,6 +64,11 @@ pub struct NumberChange {
 }
 
 /// What drifted.
+///
+/// ```
+/// let k = gaugebook::DriftKind::Missing { what: "stream stdout".into() };
+/// assert!(matches!(k, gaugebook::DriftKind::Missing { .. }));
+/// ```
 #[derive(Clone, Debug, PartialEq)]
 #[non_exhaustive]
 pub enum DriftKind {
@@ -111,6 +122,12 @@ pub enum DriftKind {
 }
 
 /// One difference between the recording and the rerun.
+///
+/// ```
+/// let d = gaugebook::Drift { cell: Some(3), cell_id: "sizing".into(), output: Some(1),
+///     kind: gaugebook::DriftKind::Bytes { what: "image/png".into() } };
+/// assert_eq!(d.to_string(), "cell 3 (id sizing), output 1: image/png bytes changed");
+/// ```
 #[derive(Clone, Debug, PartialEq)]
 pub struct Drift {
     /// 1-based position of the cell (markdown cells counted); `None` for input files.
@@ -146,7 +163,13 @@ pub struct VerifyReport {
 }
 
 impl VerifyReport {
-    /// True when nothing drifted.
+    /// True when nothing drifted (notes do not count).
+    ///
+    /// ```
+    /// let r = gaugebook::VerifyReport { path: "n.ipynb".into(), cells: 1, outputs: 1,
+    ///     drifts: vec![], notes: vec!["no gaugebook provenance recorded".into()] };
+    /// assert!(r.passed());
+    /// ```
     pub fn passed(&self) -> bool {
         self.drifts.is_empty()
     }
