@@ -356,10 +356,8 @@ fn cell_json(c: &Cell, id: &str) -> Value {
         CellKind::Markdown => "markdown",
         CellKind::Raw => "raw",
     };
-    if c.kind != CellKind::Code {
-        if let Some(a) = &c.attachments {
-            m.insert("attachments".into(), a.clone());
-        }
+    if let (false, Some(a)) = (c.kind == CellKind::Code, &c.attachments) {
+        m.insert("attachments".into(), a.clone());
     }
     m.insert("cell_type".into(), json!(kind));
     Value::Object(m)

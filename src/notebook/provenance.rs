@@ -23,13 +23,12 @@ pub fn rhai_version() -> &'static str {
     const LOCK: &str = include_str!("../../Cargo.lock");
     let mut lines = LOCK.lines();
     while let Some(l) = lines.next() {
-        if l.trim() == "name = \"rhai\"" {
-            if let Some(v) = lines
+        if l.trim() == "name = \"rhai\""
+            && let Some(v) = lines
                 .next()
                 .and_then(|v| v.trim().strip_prefix("version = \""))
-            {
-                return v.trim_end_matches('"');
-            }
+        {
+            return v.trim_end_matches('"');
         }
     }
     "unknown"

@@ -220,11 +220,10 @@ impl Recorder {
                 text: new_text,
             },
         ) = (outs.last_mut(), &r.output)
+            && name == new_name
         {
-            if name == new_name {
-                text.push_str(new_text);
-                return;
-            }
+            text.push_str(new_text);
+            return;
         }
         outs.push(r);
     }
@@ -253,10 +252,10 @@ impl OutputSink for Recorder {
             let Ok(mut s) = self.state.lock() else { return };
             let Some(id) = display_id else { return };
             for r in s.cells.iter_mut().flatten() {
-                if r.display_id.as_deref() == Some(id.as_str()) {
-                    if let Output::DisplayData { data: d, .. } = &mut r.output {
-                        *d = data.clone();
-                    }
+                if r.display_id.as_deref() == Some(id.as_str())
+                    && let Output::DisplayData { data: d, .. } = &mut r.output
+                {
+                    *d = data.clone();
                 }
             }
             return;

@@ -351,14 +351,12 @@ fn compare_output(a: &Output, b: &Output, tol: Tolerance) -> Vec<DriftKind> {
                     continue;
                 };
                 match (v1, v2) {
-                    _ if is_json_mime(mime) => {
-                        if v1 != v2 {
-                            out.push(DriftKind::Text {
-                                what: mime.clone(),
-                                old: v1.to_string(),
-                                new: v2.to_string(),
-                            });
-                        }
+                    _ if is_json_mime(mime) && v1 != v2 => {
+                        out.push(DriftKind::Text {
+                            what: mime.clone(),
+                            old: v1.to_string(),
+                            new: v2.to_string(),
+                        });
                     }
                     (Value::String(s1), Value::String(s2)) if mime.starts_with("image/png") => {
                         let strip = |s: &str| s.split_whitespace().collect::<String>();
