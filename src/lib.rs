@@ -115,8 +115,7 @@ mod kernel;
 pub use kernel::{
     Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
     KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
-    run_kernel_with,
-    uninstall_kernelspec,
+    run_kernel_with, uninstall_kernelspec,
 };
 
 // Headless notebooks: run, provenance, verify (issue 8, feature `script`).
