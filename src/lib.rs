@@ -131,3 +131,13 @@ pub use kernel::{
     KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
     run_kernel_with, uninstall_kernelspec,
 };
+
+// Headless notebooks: run, provenance, verify (issue 8, feature `script`).
+#[cfg(feature = "script")]
+mod notebook;
+#[cfg(feature = "script")]
+pub use notebook::{
+    Cell, CellKind, Drift, DriftKind, Notebook, NotebookError, NumberChange, Output, Provenance,
+    RunOptions, VerifyOptions, VerifyReport, file_hash, rhai_version, run_notebook,
+    verify_notebook,
+};

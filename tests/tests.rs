@@ -9,6 +9,8 @@ mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
 mod layout;
+#[cfg(feature = "script")]
+mod notebook;
 #[cfg(feature = "plot")]
 mod plot;
 mod rosette;
