@@ -5,6 +5,8 @@ mod calib;
 mod chain;
 mod common;
 mod data;
+#[cfg(feature = "cli")]
+mod demo;
 mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
