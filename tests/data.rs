@@ -349,6 +349,29 @@ fn units_from_headers_in_every_form_and_the_override_map() {
 }
 
 #[test]
+fn the_bench_log_headers() {
+    // The columns of ../shared/bench/gen_testlog.py.
+    let d = tempfile::tempdir().unwrap();
+    let p = write(
+        d.path(),
+        "bench.csv",
+        "time_s,sg1_mVV,temp_C,load_ref_N\n0.000,0.052,23.000,0.00\n0.001,0.053,23.001,1.50\n",
+    );
+    let log = read_log(&p, &LogOptions::new()).unwrap();
+    let t = log.time.as_ref().unwrap();
+    assert_eq!(
+        (t.channel.name.as_str(), t.channel.unit.symbol()),
+        ("time", "s")
+    );
+    assert_close(t.sample_rate_hz, 1000.0, 1e-9, 0.0);
+    let temp = log.channel("temp").unwrap();
+    assert_eq!(temp.unit.kind(), gaugebook::Kind::AbsoluteTemperature);
+    // 23 °C = 296.15 K (SI Brochure, 9th ed., 2.3.1: t/°C = T/K − 273.15).
+    assert_close(temp.si_values()[0], 296.15, 1e-12, 0.0);
+    assert_eq!(log.channel("load_ref").unwrap().unit.symbol(), "N");
+}
+
+#[test]
 fn values_are_the_correctly_rounded_doubles() {
     // Reference: Rust's f64 FromStr is correctly rounded (IEEE 754 round to nearest), as is
     // Python's float(); the reader must give the same bits.
