@@ -18,6 +18,8 @@ mod plot;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;
+#[cfg(all(feature = "script", feature = "data"))]
+mod script_data;
 mod signal;
 mod spring;
 mod standards;

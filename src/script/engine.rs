@@ -26,6 +26,8 @@ const DOMAINS: &[fn(&mut Engine)] = &[
     super::signal::register,
     super::spring::register,
     super::calib::register,
+    #[cfg(feature = "data")]
+    super::data::register,
     // bridge::register, gauge::register, rosette::register, chain::register,
     // spring::register, layout::register, signal::register, calib::register,
     // uncertainty::register, data::register (feature "data"), plot::register (feature "plot"),
@@ -98,6 +100,9 @@ pub(crate) fn build(options: &SessionOptions) -> Parts {
         sources.clone(),
     ));
     engine.set_module_resolver(ResolverHandle(resolver.clone()));
+    // Native functions that take file paths (`read_log`) resolve them against the script folder.
+    #[cfg(feature = "data")]
+    engine.set_default_tag(super::data::script_dir_tag(options.script_dir.as_deref()));
 
     let s = sink.clone();
     engine.on_print(move |text| s.get().stdout(&format!("{text}\n")));

@@ -70,6 +70,8 @@ mod circuits;
 mod column;
 mod complete;
 mod core;
+#[cfg(feature = "data")]
+mod data;
 mod doc;
 mod engine;
 mod error;

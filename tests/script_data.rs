@@ -1,0 +1,235 @@
+//! Script-level tests of the test-log bindings (`src/script/data.rs`): paths resolved against the
+//! script's folder, errors at the call position naming file, row and column, the frame's text
+//! and HTML, strain from bridge output against the closed-form quarter-bridge output, and export
+//! round trips.
+
+use std::path::Path;
+
+use gaugebook::script::{ScriptError, Session, SessionOptions};
+
+fn session_in(dir: Option<&Path>) -> Session {
+    Session::new(SessionOptions {
+        script_dir: dir.map(Path::to_path_buf),
+        ..Default::default()
+    })
+    .expect("session")
+}
+
+fn value(s: &mut Session, code: &str, mime: &str) -> String {
+    match s.eval_cell(code, "cell[1]") {
+        Ok(out) => out
+            .value
+            .and_then(|b| b.get(mime).map(str::to_string))
+            .unwrap_or_default(),
+        Err(e) => panic!("{}", e.render()),
+    }
+}
+
+fn run(s: &mut Session, code: &str) {
+    if let Err(e) = s.eval_cell(code, "cell[1]") {
+        panic!("{}", e.render());
+    }
+}
+
+fn err(s: &mut Session, code: &str) -> ScriptError {
+    match s.eval_cell(code, "cell[2]") {
+        Ok(out) => panic!("expected an error, got {:?}", out.value),
+        Err(e) => e,
+    }
+}
+
+#[test]
+fn relative_paths_resolve_against_the_session_script_folder() {
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(dir.path().join("run.csv"), "time_s,load [kN]\n0,1\n1,2\n").unwrap();
+    let mut s = session_in(Some(dir.path()));
+    run(
+        &mut s,
+        r#"let f = read_log("run.csv"); assert_eq(f.rows, 2); assert_close(f["load"][1], q("2 kN"), 1e-12);"#,
+    );
+    // Written relative to the same folder, read back.
+    run(
+        &mut s,
+        r#"write_csv("out.csv", #{ e: column([1.0], "ue") }); assert_eq(read_log("out.csv").rows, 1);"#,
+    );
+    assert!(dir.path().join("out.csv").is_file());
+}
+
+#[test]
+fn relative_paths_resolve_against_the_calling_file() {
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(dir.path().join("log.csv"), "x [mm]\n4\n").unwrap();
+    let script = dir.path().join("analysis.rhai");
+    let code = r#"read_log("log.csv")["x"][0]"#;
+    std::fs::write(&script, code).unwrap();
+    // No script folder in the session: the origin (a real file) decides.
+    let mut s = session_in(None);
+    let out = s
+        .eval_cell(code, &script.to_string_lossy())
+        .unwrap_or_else(|e| panic!("{}", e.render()));
+    assert_eq!(out.value.unwrap().get("text/plain"), Some("4 mm"));
+}
+
+#[test]
+fn a_missing_file_is_an_error_at_the_call_naming_the_file() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut s = session_in(Some(dir.path()));
+    let e = err(&mut s, "let a = 1;\nlet f = read_log(\"nothere.csv\");");
+    assert_eq!(e.kind, "DataError");
+    assert!(e.message.contains("nothere.csv"), "{}", e.message);
+    assert_eq!((e.origin.as_str(), e.line), ("cell[2]", 2));
+    assert_eq!(e.column, 9, "{}", e.render());
+}
+
+#[test]
+fn a_bad_number_names_file_row_and_column() {
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(dir.path().join("bad.csv"), "t,sg1_mVV\n0,0.1\n1,oops\n").unwrap();
+    let mut s = session_in(Some(dir.path()));
+    let e = err(&mut s, r#"read_log("bad.csv")"#);
+    assert_eq!(e.kind, "DataError");
+    // Row 3 (header = row 1), column 2 `sg1_mVV`.
+    assert!(e.message.contains("bad.csv"), "{}", e.message);
+    assert!(e.message.contains("row 3"), "{}", e.message);
+    assert!(e.message.contains("column 2"), "{}", e.message);
+    assert_eq!(e.line, 1);
+    // With skip_nan a NaN row is dropped and listed, but text is still an error.
+    let e = err(
+        &mut s,
+        r#"read_log("bad.csv", #{ skip_nan: true, colums: ["sg1"] })"#,
+    );
+    assert!(e.message.contains("unknown key `colums`"), "{}", e.message);
+    let e = err(&mut s, r#"read_log("bad.csv")["sg9"]"#);
+    assert!(e.message.contains("no column `sg9`"), "{}", e.message);
+}
+
+#[test]
+fn the_frame_prints_names_units_and_ranges_and_shows_as_a_table() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut csv = String::from("time_s,sg1_mVV\n");
+    for i in 0..25 {
+        csv.push_str(&format!("{},{}\n", i as f64 * 0.01, i as f64 * 0.1));
+    }
+    std::fs::write(dir.path().join("r.csv"), csv).unwrap();
+    let mut s = session_in(Some(dir.path()));
+    let text = value(&mut s, r#"read_log("r.csv")"#, "text/plain");
+    assert!(text.contains("25 rows × 2 columns"), "{text}");
+    assert!(text.contains("100 Hz"), "{text}");
+    assert!(text.contains("sg1") && text.contains("mV/V"), "{text}");
+    assert!(text.contains("max 2.4"), "{text}");
+    let html = value(&mut s, r#"read_log("r.csv")"#, "text/html");
+    assert!(
+        html.starts_with("<table class=\"gaugebook-frame\">"),
+        "{html}"
+    );
+    assert!(
+        html.contains("<th>unit</th><td>s</td><td>mV/V</td>"),
+        "{html}"
+    );
+    assert!(html.contains("15 more rows"), "{html}");
+}
+
+#[test]
+fn strain_from_a_logged_quarter_bridge_matches_the_closed_form() {
+    // Quarter bridge, one active arm, equal arms: Vo/V = GF·ε / (4 + 2·GF·ε)
+    // (K. Hoffmann, An Introduction to Measurements using Strain Gages, 1989, §7 (from memory));
+    // to_strain must invert it exactly.
+    let gf = 2.1;
+    let strains = [-2000e-6, -10e-6, 0.0, 500e-6, 3000e-6];
+    let mut csv = String::from("time_s,sg1 [mV/V]\n");
+    for (i, e) in strains.iter().enumerate() {
+        let r = gf * e / (4.0 + 2.0 * gf * e);
+        csv.push_str(&format!("{i},{:e}\n", r * 1e3));
+    }
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(dir.path().join("sg.csv"), csv).unwrap();
+    let mut s = session_in(Some(dir.path()));
+    for (i, e) in strains.iter().enumerate() {
+        let got = value(
+            &mut s,
+            &format!(r#"to_strain(read_log("sg.csv")["sg1"], "quarter", 2.1)[{i}].value("ue")"#),
+            "text/plain",
+        );
+        let got: f64 = got.parse().unwrap();
+        assert!(
+            (got - e * 1e6).abs() < 1e-9,
+            "sample {i}: {got} vs {}",
+            e * 1e6
+        );
+    }
+    let e = err(
+        &mut s,
+        r#"to_strain(read_log("sg.csv")["sg1"], "full-poisson", 2.1)"#,
+    );
+    assert!(e.message.contains("Poisson's ratio"), "{}", e.message);
+    let e = err(
+        &mut s,
+        r#"to_strain(read_log("sg.csv").time, "quarter", 2.1)"#,
+    );
+    assert_eq!(e.kind, "UnitError");
+}
+
+#[test]
+fn a_long_log_reads_and_reduces_in_rust() {
+    // 200 000 rows: x = i, so the mean is (n − 1)/2 exactly (closed form).
+    let n = 200_000usize;
+    let mut csv = String::with_capacity(n * 16);
+    csv.push_str("time_s,x [N]\n");
+    for i in 0..n {
+        csv.push_str(&format!("{},{i}\n", i as f64 * 1e-3));
+    }
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(dir.path().join("long.csv"), csv).unwrap();
+    let mut s = session_in(Some(dir.path()));
+    run(
+        &mut s,
+        r#"let f = read_log("long.csv");
+           assert_eq(f.rows, 200000);
+           assert_close(f["x"].mean(), q("99999.5 N"), 1e-12);
+           assert_close(f.sample_rate, q("1 kHz"), 1e-9);
+           assert_eq(f.gaps.len(), 0);"#,
+    );
+}
+
+#[test]
+fn parquet_and_csv_round_trip_with_units() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut s = session_in(Some(dir.path()));
+    run(
+        &mut s,
+        r#"let cols = #{ a: column([0.5, -1.25], "mV/V"), b: column([20.0, 21.5], "degC") };
+           write_parquet("x.parquet", cols);
+           write_csv("x.csv", cols);
+           for p in ["x.parquet", "x.csv"] {
+               let f = read_log(p, #{ time: false });
+               assert_eq(f.names, ["a", "b"]);
+               assert_eq(f["a"].values("mV/V"), [0.5, -1.25]);
+               assert_close(f["b"][1], q("21.5 degC"), 1e-12);
+           }"#,
+    );
+    let e = err(
+        &mut s,
+        r#"write_csv("y.csv", #{ a: column([1.0], "N"), b: column([1.0, 2.0], "N") })"#,
+    );
+    assert_eq!(e.kind, "DataError");
+    assert!(!dir.path().join("y.csv").exists());
+}
+
+#[test]
+fn zero_and_drift_against_hand_means() {
+    let mut s = session_in(None);
+    // zero over [0, 0.3) s: mean of 1, 2, 3 = 2 (hand calculation).
+    run(
+        &mut s,
+        r#"let t = column([0.0, 0.1, 0.2, 0.3, 0.4], "s");
+           let x = column([1.0, 2.0, 3.0, 10.0, 20.0], "uV");
+           let z = zero(x, t, 0.0 * s, 0.3 * s);
+           assert_eq(z.values("uV"), [-1.0, 0.0, 1.0, 8.0, 18.0]);"#,
+    );
+    let e = err(
+        &mut s,
+        r#"zero(column([1.0], "V"), column([0.0], "s"), 5.0 * s, 6.0 * s)"#,
+    );
+    assert_eq!(e.kind, "DataError");
+    assert!(e.message.contains("zero window"), "{}", e.message);
+}
