@@ -182,7 +182,7 @@ impl Session {
             Err(payload) => return Err(panic_error(payload, origin)),
             Ok(Err(e)) => match *e {
                 EvalAltResult::Exit(v, _) => v,
-                e => return Err(self.sources.resolve(&e, origin)),
+                e => return Err(self.explain(self.sources.resolve(&e, origin))),
             },
             Ok(Ok(v)) => v,
         };
@@ -198,6 +198,44 @@ impl Session {
         Ok(CellOutput {
             value: self.bundle(value, origin)?,
         })
+    }
+
+    /// A call that matches no overload gets the overloads that exist: a wrong argument type
+    /// is then a `TypeError` that says what the function takes.
+    fn explain(&self, mut e: ScriptError) -> ScriptError {
+        if e.kind != "FunctionNotFound" {
+            return e;
+        }
+        let Some(sig) = e
+            .message
+            .strip_prefix("no function `")
+            .and_then(|m| m.strip_suffix('`'))
+        else {
+            return e;
+        };
+        let (name, args) = sig
+            .split_once(" (")
+            .map_or((sig, ""), |(n, a)| (n, a.trim_end_matches(')')));
+        let name = name.rsplit("::").next().unwrap_or(name).trim().to_string();
+        let mut takes: Vec<String> = super::doc::reference_docs(&self.engine)
+            .into_iter()
+            .filter(|d| d.name == name)
+            .map(|d| d.signature)
+            .collect();
+        takes.extend(
+            self.lib
+                .iter_functions()
+                .filter(|f| f.name == name)
+                .map(|f| format!("{}({})", f.name, f.params.join(", "))),
+        );
+        if !takes.is_empty() {
+            e.kind = "TypeError".to_string();
+            e.message = format!(
+                "`{name}` cannot take ({args}); it takes {}",
+                takes.join(" or ")
+            );
+        }
+        e
     }
 
     /// Makes the cell's top-level imports visible to later cells (as static modules).
