@@ -444,3 +444,87 @@ fn reference_markdown_lists_every_function() {
     }
     assert!(gaugebook::script::reference_markdown(&e, Some("no_such")).is_none());
 }
+
+/// Speed (DESIGN.md §5): one column expression over 10 million samples, against the same loop
+/// over plain Rhai arrays and in plain Rust. Prints ratios, asserts only that the three agree.
+/// Run: `cargo test --release --no-default-features --features script --test integration
+/// bench_column -- --ignored --nocapture` (GB_BENCH_N sets the sample count).
+#[test]
+#[ignore = "benchmark; run in release with --ignored --nocapture"]
+fn bench_column_expression() {
+    use gaugebook::script::{Column, rhai::Dynamic};
+    use std::time::Instant;
+
+    let n: usize = std::env::var("GB_BENCH_N")
+        .ok()
+        .and_then(|v| v.parse().ok())
+        .unwrap_or(10_000_000);
+    let gf = 2.1;
+    // Strain samples spread over ±2000 µε.
+    let strain: Vec<f64> = (0..n)
+        .map(|i| ((i % 4001) as f64 - 2000.0) * 1e-6)
+        .collect();
+
+    // Quarter-bridge exact output ratio, GF·ε/4 / (1 + GF·ε/2): the Wheatstone divider identity
+    // with one active arm, ΔR/R = GF·ε (closed form); the benchmark only needs the paths to agree.
+    let t = Instant::now();
+    let rust: Vec<f64> = strain
+        .iter()
+        .map(|&e| (gf * e / 4.0) / (1.0 + gf * e / 2.0))
+        .collect();
+    let t_rust = t.elapsed().as_secs_f64();
+
+    let mut s = session();
+    s.set_constant("x", Dynamic::from(Column::new(strain.clone(), "").unwrap()));
+    s.set_constant("gf", Dynamic::from(gf));
+    let t = Instant::now();
+    s.eval_cell(
+        "let y = (x * (gf / 4.0)) / (1.0 + x * (gf / 2.0));",
+        "bench",
+    )
+    .unwrap();
+    let t_col = t.elapsed().as_secs_f64();
+    let y = s.eval_cell("y[-1]", "bench").unwrap().value.unwrap();
+    let last: f64 = y.get("text/plain").unwrap().parse().unwrap();
+    assert!(
+        (last - rust[n - 1]).abs() <= 1e-6 * rust[n - 1].abs(),
+        "{last} vs {}",
+        rust[n - 1]
+    );
+
+    // A simpler chain: scale and offset (raw output to strain to load).
+    let t = Instant::now();
+    let rust2: Vec<f64> = strain.iter().map(|&e| e * 2.0e8 + 5.0).collect();
+    let t_rust2 = t.elapsed().as_secs_f64();
+    let t = Instant::now();
+    s.eval_cell("let z = x * 2.0e8 + 5.0;", "bench").unwrap();
+    let t_col2 = t.elapsed().as_secs_f64();
+    assert_eq!(rust2.len(), n);
+
+    let arrays: Vec<Dynamic> = strain.iter().map(|&v| Dynamic::from(v)).collect();
+    s.set_constant("a", Dynamic::from_array(arrays));
+    let t = Instant::now();
+    s.eval_cell(
+        "let y2 = []; let k1 = gf / 4.0; let k2 = gf / 2.0; for e in a { y2.push((e * k1) / (1.0 + e * k2)); } y2.len()",
+        "bench",
+    )
+    .unwrap();
+    let t_rhai = t.elapsed().as_secs_f64();
+
+    println!("samples: {n}");
+    println!(
+        "quarter-bridge output: plain Rust {:.4} s, Column {:.4} s, Rhai array loop {:.3} s",
+        t_rust, t_col, t_rhai
+    );
+    println!(
+        "  Column / Rust = {:.2}   Rhai loop / Column = {:.1}",
+        t_col / t_rust,
+        t_rhai / t_col
+    );
+    println!(
+        "scale and offset: plain Rust {:.4} s, Column {:.4} s; Column / Rust = {:.2}",
+        t_rust2,
+        t_col2,
+        t_col2 / t_rust2
+    );
+}

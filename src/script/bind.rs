@@ -634,7 +634,13 @@ mod tests {
     #[test]
     fn example_binding_errors_name_the_key() {
         let e = engine();
-        let msg = |code: &str| e.eval::<rhai::Dynamic>(code).unwrap_err().to_string();
+        let msg = |code: &str| match *e.eval::<rhai::Dynamic>(code).unwrap_err() {
+            EvalAltResult::ErrorRuntime(v, _) => v
+                .read_lock::<super::super::error::Fault>()
+                .map(|f| f.message.clone())
+                .unwrap_or_default(),
+            other => other.to_string(),
+        };
         assert!(
             msg(r#"divider(#{ v: 1.0 * V, r1: 1.0 * ohm })"#)
                 .contains("missing key `r2` in options of divider()")

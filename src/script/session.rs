@@ -345,3 +345,28 @@ fn panic_error(payload: Box<dyn std::any::Any + Send>, origin: &str) -> ScriptEr
         origin,
     )
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn a_panic_in_a_native_function_is_an_error_and_the_session_lives() {
+        let mut s = Session::new(SessionOptions::default()).unwrap();
+        s.engine
+            .register_fn("boom", || -> rhai::INT { panic!("boom at the bridge") });
+        let e = s.eval_cell("let a = 41; boom()", "c").unwrap_err();
+        assert_eq!(e.kind, "Panic");
+        assert!(e.message.contains("boom at the bridge"), "{}", e.message);
+        let out = s.eval_cell("a + 1", "c").unwrap();
+        assert_eq!(out.value.unwrap().get("text/plain"), Some("42"));
+    }
+
+    #[test]
+    fn session_can_move_to_another_thread() {
+        fn is_send<T: Send>() {}
+        is_send::<Session>();
+        fn is_send_sync<T: Send + Sync>() {}
+        is_send_sync::<InterruptHandle>();
+    }
+}
