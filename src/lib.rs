@@ -34,14 +34,22 @@ pub use display::{MimeBundle, ToMime, html_escape};
 pub use error::{PhysicsError, check_finite, check_poisson, check_positive};
 
 // Spring elements, materials, layouts and check-weighing (issue 5).
+mod layout;
 mod material;
 mod spring;
+mod weighing;
+pub use layout::{
+    BridgeReport, BridgeWiring, DesignCriteria, DesignPoint, Layout, Placement, PlacementError,
+    ResponseMatrix, SensitivityRow, SensitivityTable, SweepTable, solve_for_rated_output, sweep,
+    sweep2,
+};
 pub use material::{Material, material, materials};
 pub use spring::{
     AttachedMass, Cantilever, Column, ColumnSection, Face, LoadComponent, MARGIN_CAUTION, MarginAt,
     Margins, Motion, OverloadFactors, Parallelogram, Part, PeakStress, ShearWeb, Site,
     SpringElement, Stiffness, SurfaceStrain, SurfaceStress, TorqueShaft, Wrench,
 };
+pub use weighing::{CheckWeigher, CheckWeighing, STANDARD_GRAVITY, WEIGHING_CAUTION};
 
 // Calibration, class evaluation against standards, uncertainty (issue 7).
 mod calib;
@@ -83,9 +91,29 @@ pub use rosette::{
 };
 pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 
+// The embedded worked example behind `gaugebook demo`.
+mod demo;
+pub use demo::{DesignReport, ReportSection, bridge_design_demo};
+
+// Figures (issue 6, feature `plot`).
+#[cfg(feature = "plot")]
+mod plot;
+#[cfg(feature = "plot")]
+pub use plot::{Axis, Panel, Plot, PlotError, base64_encode, histogram_bins};
+
 // Scripting: the Rhai surface, sessions, runner support (feature `script`).
 #[cfg(feature = "script")]
 pub mod script;
 
 #[cfg(feature = "cli")]
 pub mod cli;
+
+// Jupyter kernel (area: kernel).
+#[cfg(feature = "kernel")]
+mod kernel;
+#[cfg(feature = "kernel")]
+pub use kernel::{
+    Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
+    KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
+    run_kernel_with, uninstall_kernelspec,
+};

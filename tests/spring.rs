@@ -139,8 +139,10 @@ fn cantilever_stiffness_and_deflection() {
 
 #[test]
 fn cantilever_frequency_is_a_close_upper_bound_on_the_exact_first_mode() {
-    // Uniform cantilever, first mode f = (1.8751²/2π)·√(EI/(ρA·L⁴)) (Timoshenko, Young & Weaver,
-    // Vibration Problems in Engineering, 4th ed., §5.3, from memory). Rayleigh's estimate with the
+    // Uniform cantilever, first mode f = (β₁²/2π)·√(EI/(ρA·L⁴)) with β₁ the first root of
+    // cos β·cosh β + 1 = 0 (Timoshenko, Young & Weaver, Vibration Problems in Engineering, 4th
+    // ed., §5.3, from memory); β₁ = 1.8751040687119611 from scipy 1.17.1,
+    // scipy.optimize.brentq(lambda b: cos(b)*cosh(b) + 1, 1, 3, xtol=1e-15). Rayleigh's estimate with the
     // static shape (33/140 of the mass at the tip) is an upper bound within 1.5 %; a slender beam
     // keeps the shear term negligible.
     let m = material("7075-T6").unwrap();
@@ -148,7 +150,8 @@ fn cantilever_frequency_is_a_close_upper_bound_on_the_exact_first_mode() {
     let beam = Cantilever::new(m.clone(), mm(300.0), mm(20.0), mm(3.0), mm(50.0)).unwrap();
     let rho = m.density().get::<kilogram_per_cubic_meter>();
     let i = b * h.powi(3) / 12.0;
-    let exact = 1.8751f64.powi(2) / (2.0 * PI) * (e_of(&m) * i / (rho * b * h * l.powi(4))).sqrt();
+    let exact = 1.8751040687119611f64.powi(2) / (2.0 * PI)
+        * (e_of(&m) * i / (rho * b * h * l.powi(4))).sqrt();
     let f = beam
         .natural_frequency(&AttachedMass::mass(Mass::new::<kilogram>(0.0)))
         .unwrap()
@@ -681,4 +684,73 @@ fn material_table_values_are_plausible_and_sourced() {
     let ti = material("Ti64").unwrap().density();
     let st = material("4340").unwrap().density();
     assert!(ti < st);
+}
+
+#[cfg(feature = "script")]
+mod design_cell {
+    //! The stdlib module `design_cell.rhai`, run in a session: its sizing must reproduce the
+    //! target through the Rust API at the dimension it returns.
+
+    use std::sync::Arc;
+
+    use gaugebook::script::{CaptureSink, Session, SessionOptions};
+    use gaugebook::units::{ElectricalResistance, Length};
+    use gaugebook::{Arrangement, Gauge, Layout, Parallelogram, material};
+    use uom::si::electrical_resistance::ohm;
+    use uom::si::length::millimeter;
+
+    use crate::common::assert_close;
+
+    fn run(code: &str) -> Result<String, String> {
+        let mut s = Session::new(SessionOptions::default()).map_err(|e| e.to_string())?;
+        s.set_output(Arc::new(CaptureSink::default()));
+        match s.eval_cell(code, "design_cell test") {
+            Ok(out) => Ok(out
+                .value
+                .map(|b| b.get("text/plain").unwrap_or("").to_string())
+                .unwrap_or_default()),
+            Err(e) => Err(e.render()),
+        }
+    }
+
+    #[test]
+    fn sizes_a_parallelogram_for_the_target_output() {
+        let t = run(r#"
+            import "design_cell" as dc;
+            let d = dc::size(150.0 * N, 2.0 * mV_per_V, #{ material: "2024-T351" });
+            assert_eq(d.kind, "parallelogram");
+            assert_close(d.rated_output, 2.0 * mV_per_V, 1e-6);
+            d.dimension.value("mm")
+        "#)
+        .unwrap();
+        let h: f64 = t.trim().parse().unwrap();
+        // The same design through the Rust API (the stdlib's fixed proportions).
+        let mm = Length::new::<millimeter>;
+        let p = Parallelogram::new(
+            material("2024-T351").unwrap(),
+            mm(40.0),
+            mm(20.0),
+            mm(h),
+            mm(30.0),
+            mm(6.0),
+        )
+        .unwrap();
+        let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0).unwrap();
+        let l = Layout::standard(p, &g, Arrangement::FullBending, 150.0).unwrap();
+        assert_close(l.report(0).unwrap().rated_output.mv_per_v(), 2.0, 1e-6, 0.0);
+    }
+
+    #[test]
+    fn says_so_when_no_design_meets_the_target() {
+        // 5 mV/V from an aluminium column needs ~3.8e-3 strain: it yields at 150 % overload.
+        let e = run(r#"
+            import "design_cell" as dc;
+            dc::size(100.0 * kN, 5.0 * mV_per_V, #{ material: "2024-T351" })
+        "#)
+        .unwrap_err();
+        assert!(
+            e.contains("yields at the safe overload") || e.contains("no column"),
+            "{e}"
+        );
+    }
 }

@@ -280,3 +280,39 @@ fn iso376_bad_input() {
     );
     assert!(classify_iso376(&d).is_err());
 }
+
+/// OIML R 60-1:2021 3.5: Z = (E_max − E_min)/(2 DR); a declared Z = 5000 on 10 kN allows
+/// DR ≤ 1 N, tighter here than 0.5 v = 1.67 N.
+#[test]
+fn r60_declared_z() {
+    let (mut cell, run) = c3_run(&[0.0; 11]);
+    cell.z = Some(5000.0);
+    let extras = R60Extras {
+        dead_load_return: Some(1.2),
+        ..R60Extras::default()
+    };
+    let v = evaluate_r60(&cell, &run, &extras).unwrap();
+    let f = v.failures();
+    assert_eq!(f.len(), 1, "{v}");
+    assert_eq!(f[0].name, "DR against the declared Z");
+    assert_close(f[0].limit, 1.0, 1e-12, 0.0);
+}
+
+/// Differential check of the E74 quadratic evaluation against numpy 2.4.6:
+/// `p = np.polyfit(f, y, 2); r = y - np.polyval(p, f); sl = np.polyval(np.polyder(p), f);
+/// s = sqrt(sum((r/sl)**2)/(n - 3))` = 2.5738233940872988 N for the data below.
+#[test]
+fn e74_quadratic_against_numpy() {
+    let f: Vec<f64> = (1..=10).map(|i| i as f64 * 10_000.0).collect();
+    let e = [3.0, -2.0, 1.0, -4.0, 2.0, 0.0, -1.0, 3.0, -2.0, 0.0];
+    let y: Vec<f64> = f
+        .iter()
+        .zip(&e)
+        .map(|(f, e)| 2e-7 * (f + e) + 1e-15 * f * f)
+        .collect();
+    let mut run = CalibrationRun::force_in_output_ratio();
+    run.push_series(&f, &y, Direction::Ascending, 0.0).unwrap();
+    let r = evaluate_e74(&run, 2, 0.01, &[]).unwrap();
+    assert_close(r.s, 2.5738233940872988, 1e-7, 0.0);
+    assert_close(r.llf, 6.177176145809517, 1e-7, 0.0);
+}

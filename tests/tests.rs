@@ -7,6 +7,11 @@ mod chain;
 mod cli;
 mod common;
 mod gauge;
+#[cfg(feature = "kernel")]
+mod kernel;
+mod layout;
+#[cfg(feature = "plot")]
+mod plot;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;
@@ -15,3 +20,4 @@ mod spring;
 mod standards;
 mod uncertainty;
 mod units;
+mod weighing;

@@ -4,8 +4,11 @@
 //! The tables are plain data; the notebook display goes through [`crate::ToMime`]
 //! (text/plain and text/html). Figures and plots are made from the same numbers elsewhere.
 
+use std::fmt;
+
 use crate::{
-    Characterisation, ClassVerdict, GumResult, MimeBundle, ToMime, VERDICT_CAUTION, html_escape,
+    CalibrationRun, Characterisation, ClassVerdict, Figure, Fit, GumResult, MimeBundle, ToMime,
+    VERDICT_CAUTION, html_escape,
 };
 
 /// One row of a report table.
@@ -351,9 +354,161 @@ impl GumResult {
     }
 }
 
+impl fmt::Display for GumResult {
+    /// The budget table in markdown.
+    ///
+    /// ```
+    /// use gaugebook::{Budget, Input};
+    /// let r = Budget::new(vec![Input::normal("x", 1.0, 0.1, 9.0)?]).evaluate(|x| x[0])?;
+    /// assert!(r.to_string().contains("| u_c(y) | 0.1 |"));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(&self.table("").to_markdown())
+    }
+}
+
 impl ToMime for GumResult {
     fn to_mime(&self) -> MimeBundle {
         self.table("").to_mime()
+    }
+}
+
+impl fmt::Display for ReportTable {
+    /// The markdown form.
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(&self.to_markdown())
+    }
+}
+
+impl fmt::Display for Characterisation {
+    /// The characterisation table in markdown.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Characterisation, CharacteriseOptions, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 500.0, 1000.0], &[0.0, 1.0, 2.0], Direction::Ascending, 0.0)?;
+    /// let c = Characterisation::from_run(&run, CharacteriseOptions::new(1000.0))?;
+    /// assert!(c.to_string().contains("| rated output | 2 | mV/V |"));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(&self.table().to_markdown())
+    }
+}
+
+impl fmt::Display for Figure {
+    /// `0.05 % RO (2.5 load units)`.
+    ///
+    /// ```
+    /// let f = gaugebook::Figure::from_indication(0.001, 2.0, 5000.0);
+    /// assert_eq!(f.to_string(), "0.05 % RO (2.5 in load units)");
+    /// ```
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(
+            f,
+            "{} % RO ({} in load units)",
+            sig(self.percent_ro, 6),
+            sig(self.load, 6)
+        )
+    }
+}
+
+impl ToMime for Figure {
+    fn to_mime(&self) -> MimeBundle {
+        MimeBundle::text(self.to_string())
+    }
+}
+
+impl fmt::Display for CalibrationRun {
+    /// One line: series, points, units.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.0, 2.0], Direction::Ascending, 0.0)?;
+    /// assert_eq!(run.to_string(), "calibration run: 1 series, 2 points, N against mV/V");
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        write!(
+            f,
+            "calibration run: {} series, {} points, {} against {}",
+            self.series().len(),
+            self.points().len(),
+            self.load_kind().si_unit(),
+            self.indication_unit()
+        )
+    }
+}
+
+impl ToMime for CalibrationRun {
+    fn to_mime(&self) -> MimeBundle {
+        let mut t = ReportTable::new(&self.to_string());
+        for p in self.points() {
+            let dir = match p.direction {
+                crate::Direction::Ascending => "ascending",
+                crate::Direction::Descending => "descending",
+            };
+            t.rows.push(ReportRow::new(
+                &format!(
+                    "series {} ({dir}, {}°) at {} {}",
+                    p.series,
+                    p.rotation_deg,
+                    sig(p.load, 6),
+                    self.load_kind().si_unit()
+                ),
+                p.indication,
+                self.indication_unit(),
+            ));
+        }
+        t.to_mime().with("text/plain", self.to_string())
+    }
+}
+
+impl Fit {
+    /// The fit as a table: coefficients with standard errors, s, ν, R².
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0], &[0.1, 1.0, 2.1, 2.9], FitModel::Linear)?;
+    /// assert!(f.table().to_csv().contains("b1,"));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn table(&self) -> ReportTable {
+        let mut t = ReportTable::new(&format!("least-squares fit ({:?})", self.model()));
+        for (k, (c, s)) in self
+            .coefficients()
+            .iter()
+            .zip(self.std_errors())
+            .enumerate()
+        {
+            let mut r = ReportRow::new(&format!("b{k}"), *c, "");
+            r.limit = Some(format!("u = {}", sig(*s, 6)));
+            t.rows.push(r);
+        }
+        t.rows.push(ReportRow::new(
+            "residual standard deviation",
+            self.residual_sd(),
+            "",
+        ));
+        t.rows
+            .push(ReportRow::new("degrees of freedom", self.dof() as f64, ""));
+        t.rows.push(ReportRow::new("R²", self.r_squared(), ""));
+        t
+    }
+}
+
+impl fmt::Display for Fit {
+    /// The fit table in markdown.
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        f.write_str(&self.table().to_markdown())
+    }
+}
+
+impl ToMime for Fit {
+    fn to_mime(&self) -> MimeBundle {
+        self.table().to_mime()
     }
 }
 

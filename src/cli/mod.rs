@@ -9,6 +9,8 @@ use std::process::ExitCode;
 use clap::{Parser, Subcommand};
 
 mod doc;
+// Jupyter kernel subcommand (area: kernel).
+mod kernel;
 mod repl;
 mod run;
 
@@ -46,6 +48,11 @@ enum Command {
         /// A function name; omit for the whole reference.
         name: Option<String>,
     },
+    /// Serve the Jupyter kernel, or install / remove its kernelspec.
+    Kernel {
+        #[command(subcommand)]
+        command: kernel::KernelCommand,
+    },
 }
 
 /// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
@@ -54,10 +61,11 @@ enum Command {
 pub fn main() -> ExitCode {
     let args = Args::parse();
     let result: anyhow::Result<ExitCode> = match args.command {
-        Command::Demo => Ok(ExitCode::SUCCESS),
+        Command::Demo => demo().map(|()| ExitCode::SUCCESS),
         Command::Run { file, set, stdlib } => run::run(&file, &set, stdlib),
         Command::Repl { stdlib } => repl::repl(stdlib),
         Command::Doc { name } => doc::doc(name.as_deref()),
+        Command::Kernel { command } => kernel::kernel(command),
     };
     match result {
         Ok(code) => code,
@@ -66,4 +74,15 @@ pub fn main() -> ExitCode {
             ExitCode::FAILURE
         }
     }
+}
+
+/// Prints the embedded worked design.
+fn demo() -> anyhow::Result<()> {
+    let report = gaugebook_demo()?;
+    println!("{report}");
+    Ok(())
+}
+
+fn gaugebook_demo() -> anyhow::Result<crate::DesignReport> {
+    Ok(crate::bridge_design_demo()?)
 }

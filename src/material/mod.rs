@@ -51,6 +51,7 @@ pub struct Material {
     ultimate_strength: Stress,
     density: MassDensity,
     fatigue_strength: Option<Stress>,
+    modulus_tc: TemperatureCoefficient,
     source: String,
 }
 
@@ -116,6 +117,7 @@ impl Material {
             ultimate_strength,
             density,
             fatigue_strength: None,
+            modulus_tc: TemperatureCoefficient::new::<per_kelvin>(0.0),
             source: "user supplied".into(),
         })
     }
@@ -142,6 +144,41 @@ impl Material {
         }
         self.fatigue_strength = Some(strength);
         Ok(self)
+    }
+
+    /// Sets the temperature coefficient of Young's modulus, (1/E)·dE/dT (negative for metals).
+    /// The built-in table leaves it at zero because no handbook value is recalled; set it from a
+    /// source before reading a layout's span drift with temperature.
+    ///
+    /// ```
+    /// use gaugebook::units::TemperatureCoefficient;
+    /// use uom::si::temperature_coefficient::ppm_per_kelvin;
+    /// let m = gaugebook::material("4340")?
+    ///     .with_modulus_tc(TemperatureCoefficient::new::<ppm_per_kelvin>(-250.0))?;
+    /// assert_eq!(m.modulus_tc().get::<ppm_per_kelvin>(), -250.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn with_modulus_tc(mut self, tc: TemperatureCoefficient) -> Result<Material, PhysicsError> {
+        let v = tc.get::<per_kelvin>();
+        if !(v.is_finite() && v.abs() < 0.01) {
+            return Err(PhysicsError::invalid(
+                "modulus temperature coefficient",
+                format!("{v} 1/K"),
+                "a finite value within ±0.01 1/K",
+            ));
+        }
+        self.modulus_tc = tc;
+        Ok(self)
+    }
+
+    /// The temperature coefficient of Young's modulus (zero unless set).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::material("7075-T6")?.modulus_tc().get::<uom::si::temperature_coefficient::per_kelvin>(), 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn modulus_tc(&self) -> TemperatureCoefficient {
+        self.modulus_tc
     }
 
     /// Records where the values came from (handbook and edition, certificate, test report).

@@ -53,7 +53,8 @@ pub fn summarize(x: &[f64]) -> Result<Summary, PhysicsError> {
         });
     }
     let n = x.len() as f64;
-    let (sum, sum_sq) = pairwise2(x, |v| v, |v| v * v);
+    let first = first_pass(x);
+    let (sum, sum_sq, min, max) = (first.sum, first.sum_sq, first.min, first.max);
     if !(sum.is_finite() && sum_sq.is_finite())
         && let Some(i) = x.iter().position(|v| !v.is_finite())
     {
@@ -63,11 +64,6 @@ pub fn summarize(x: &[f64]) -> Result<Summary, PhysicsError> {
             "a finite value",
         ));
     }
-    let (min, max) = x
-        .iter()
-        .fold((f64::INFINITY, f64::NEG_INFINITY), |(lo, hi), &v| {
-            (lo.min(v), hi.max(v))
-        });
     let mean = sum / n;
     let (dev, dev_sq) = pairwise2(x, |v| v - mean, |v| (v - mean) * (v - mean));
     let var = (dev_sq - dev * dev / n) / (n - 1.0);
@@ -140,6 +136,58 @@ pub fn rising_crossings(x: &[f64], level: f64) -> usize {
         .sum()
 }
 
+/// Sum, sum of squares, minimum and maximum in one pass.
+struct First {
+    sum: f64,
+    sum_sq: f64,
+    min: f64,
+    max: f64,
+}
+
+/// [`First`] by pairwise summation (numpy's block shape), with eight lanes of running minimum
+/// and maximum in each block so the loop vectorises.
+fn first_pass(x: &[f64]) -> First {
+    const BLOCK: usize = 128;
+    let n = x.len();
+    if n <= BLOCK {
+        let mut r = [0.0f64; 8];
+        let mut q = [0.0f64; 8];
+        let mut lo = [f64::INFINITY; 8];
+        let mut hi = [f64::NEG_INFINITY; 8];
+        let full = if n < 8 { 0 } else { n - n % 8 };
+        for c in x[..full].chunks_exact(8) {
+            for k in 0..8 {
+                r[k] += c[k];
+                q[k] += c[k] * c[k];
+                lo[k] = if c[k] < lo[k] { c[k] } else { lo[k] };
+                hi[k] = if c[k] > hi[k] { c[k] } else { hi[k] };
+            }
+        }
+        let mut out = First {
+            sum: ((r[0] + r[1]) + (r[2] + r[3])) + ((r[4] + r[5]) + (r[6] + r[7])),
+            sum_sq: ((q[0] + q[1]) + (q[2] + q[3])) + ((q[4] + q[5]) + (q[6] + q[7])),
+            min: lo.iter().copied().fold(f64::INFINITY, f64::min),
+            max: hi.iter().copied().fold(f64::NEG_INFINITY, f64::max),
+        };
+        for &v in &x[full..] {
+            out.sum += v;
+            out.sum_sq += v * v;
+            out.min = out.min.min(v);
+            out.max = out.max.max(v);
+        }
+        return out;
+    }
+    let half = n / 2;
+    let half = half - half % 8;
+    let (a, b) = (first_pass(&x[..half]), first_pass(&x[half..]));
+    First {
+        sum: a.sum + b.sum,
+        sum_sq: a.sum_sq + b.sum_sq,
+        min: a.min.min(b.min),
+        max: a.max.max(b.max),
+    }
+}
+
 /// Two pairwise sums of mapped values in one pass (numpy's pairwise_sum shape, two lanes).
 fn pairwise2(
     x: &[f64],
@@ -202,5 +250,13 @@ mod tests {
     fn pairwise_sum_is_exact_on_integers() {
         let x: Vec<f64> = (1..=100_000).map(|i| i as f64).collect();
         assert_eq!(pairwise2(&x, |v| v, |_| 1.0), (5_000_050_000.0, 100_000.0));
+        // Closed forms: Σi = n(n+1)/2, Σi² = n(n+1)(2n+1)/6 (exact in f64 at this size).
+        for n in [1usize, 7, 8, 9, 127, 128, 129, 1000, 100_000] {
+            let x: Vec<f64> = (1..=n).map(|i| i as f64).collect();
+            let f = first_pass(&x);
+            let nf = n as f64;
+            assert_eq!((f.sum, f.min, f.max), (nf * (nf + 1.0) / 2.0, 1.0, nf));
+            assert_eq!(f.sum_sq, nf * (nf + 1.0) * (2.0 * nf + 1.0) / 6.0);
+        }
     }
 }

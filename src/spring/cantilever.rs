@@ -59,6 +59,16 @@ impl Cantilever {
     /// A beam of `length` (fixed end to load point), `width` (Y), `depth` (Z, bending), with the
     /// standard gauge sites at `station` from the fixed end. Errors: non-positive dimensions,
     /// L/h below 5, a station outside the beam.
+    ///
+    /// ```
+    /// # use gaugebook::{Cantilever, material};
+    /// # use gaugebook::units::Length;
+    /// # use uom::si::length::millimeter;
+    /// # let mm = Length::new::<millimeter>;
+    /// assert!(Cantilever::new(material("4340")?, mm(30.0), mm(10.0), mm(8.0), mm(10.0)).is_err());
+    /// assert!(Cantilever::new(material("4340")?, mm(80.0), mm(10.0), mm(8.0), mm(10.0)).is_ok());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(
         material: Material,
         length: Length,
@@ -93,6 +103,16 @@ impl Cantilever {
     }
 
     /// The width b (along Y).
+    ///
+    /// ```
+    /// # use gaugebook::{Cantilever, material};
+    /// # use gaugebook::units::Length;
+    /// # use uom::si::length::millimeter;
+    /// # let mm = Length::new::<millimeter>;
+    /// let b = Cantilever::new(material("4340")?, mm(80.0), mm(10.0), mm(8.0), mm(10.0))?;
+    /// assert!((b.width().get::<millimeter>() - 10.0).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn width(&self) -> Length {
         match self.bar.section {
             Section::Rectangle { b, .. } => len(b),
@@ -101,6 +121,16 @@ impl Cantilever {
     }
 
     /// The depth h (along Z).
+    ///
+    /// ```
+    /// # use gaugebook::{Cantilever, material};
+    /// # use gaugebook::units::Length;
+    /// # use uom::si::length::millimeter;
+    /// # let mm = Length::new::<millimeter>;
+    /// let b = Cantilever::new(material("4340")?, mm(80.0), mm(10.0), mm(8.0), mm(10.0))?;
+    /// assert!((b.depth().get::<millimeter>() - 8.0).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn depth(&self) -> Length {
         match self.bar.section {
             Section::Rectangle { h, .. } => len(h),
@@ -109,6 +139,16 @@ impl Cantilever {
     }
 
     /// The standard gauge station, from the fixed end.
+    ///
+    /// ```
+    /// # use gaugebook::{Cantilever, material};
+    /// # use gaugebook::units::Length;
+    /// # use uom::si::length::millimeter;
+    /// # let mm = Length::new::<millimeter>;
+    /// let b = Cantilever::new(material("4340")?, mm(80.0), mm(10.0), mm(8.0), mm(10.0))?;
+    /// assert!((b.station().get::<millimeter>() - 10.0).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn station(&self) -> Length {
         len(self.station)
     }

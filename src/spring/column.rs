@@ -99,6 +99,18 @@ impl Column {
     /// A column of `length` with the standard sites at `station` from the base. Errors:
     /// non-positive dimensions, inner ≥ outer, a thick-walled square tube, a station closer than
     /// one width to either end.
+    ///
+    /// ```
+    /// # use gaugebook::{Column, ColumnSection, material};
+    /// # use gaugebook::units::Length;
+    /// # use uom::si::length::millimeter;
+    /// # let mm = Length::new::<millimeter>;
+    /// let tube = ColumnSection::HollowRound { outer: mm(20.0), inner: mm(16.0) };
+    /// assert!(Column::new(material("4340")?, tube, mm(60.0), mm(30.0)).is_ok());
+    /// // Gauges 10 mm from the end of a 20 mm tube: too close (Saint-Venant).
+    /// assert!(Column::new(material("4340")?, tube, mm(60.0), mm(10.0)).is_err());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(
         material: Material,
         section: ColumnSection,
@@ -178,11 +190,31 @@ impl Column {
     }
 
     /// The cross-section.
+    ///
+    /// ```
+    /// # use gaugebook::{Column, ColumnSection, material};
+    /// # use gaugebook::units::Length;
+    /// # use uom::si::length::millimeter;
+    /// # let mm = Length::new::<millimeter>;
+    /// let s = ColumnSection::Square { side: mm(12.0) };
+    /// assert_eq!(Column::new(material("4340")?, s, mm(60.0), mm(30.0))?.section(), s);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn section(&self) -> ColumnSection {
         self.shape
     }
 
     /// The cross-sectional area.
+    ///
+    /// ```
+    /// # use gaugebook::{Column, ColumnSection, material};
+    /// # use gaugebook::units::Length;
+    /// # use uom::si::length::millimeter;
+    /// # let mm = Length::new::<millimeter>;
+    /// let c = Column::new(material("4340")?, ColumnSection::Square { side: mm(10.0) }, mm(60.0), mm(30.0))?;
+    /// assert!((c.area().get::<uom::si::area::square_millimeter>() - 100.0).abs() < 1e-9);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn area(&self) -> uom::si::f64::Area {
         uom::si::f64::Area::new::<uom::si::area::square_meter>(self.bar.section.area())
     }

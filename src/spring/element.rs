@@ -37,6 +37,11 @@ pub enum Stiffness {
 
 impl Stiffness {
     /// The value in SI (N/m or N·m/rad).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::Stiffness::Rotational(12.0).value(), 12.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn value(&self) -> f64 {
         match *self {
             Stiffness::Translational(k) | Stiffness::Rotational(k) => k,
@@ -99,6 +104,15 @@ pub struct AttachedMass {
 
 impl AttachedMass {
     /// A point mass and no rotary inertia.
+    ///
+    /// ```
+    /// use gaugebook::AttachedMass;
+    /// use gaugebook::units::Mass;
+    /// use uom::si::{mass::kilogram, moment_of_inertia::kilogram_square_meter};
+    /// let a = AttachedMass::mass(Mass::new::<kilogram>(0.5));
+    /// assert_eq!(a.inertia.get::<kilogram_square_meter>(), 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn mass(mass: Mass) -> AttachedMass {
         AttachedMass {
             mass,
@@ -306,5 +320,57 @@ pub(crate) fn check_station(model: &str, x: f64, lo: f64, hi: f64) -> Result<(),
                 hi * 1e3
             ),
         ))
+    }
+}
+
+/// A shared element is an element: layouts and scripts can hold one element behind an `Arc`.
+///
+/// ```
+/// use std::sync::Arc;
+/// use gaugebook::{Cantilever, SpringElement, material};
+/// use gaugebook::units::Length;
+/// use uom::si::length::millimeter;
+/// let mm = Length::new::<millimeter>;
+/// let e: Arc<dyn SpringElement + Send + Sync> =
+///     Arc::new(Cantilever::new(material("7075-T6")?, mm(100.0), mm(20.0), mm(5.0), mm(30.0))?);
+/// assert_eq!(e.kind(), "cantilever bending beam");
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
+impl SpringElement for std::sync::Arc<dyn SpringElement + Send + Sync> {
+    fn kind(&self) -> &'static str {
+        self.as_ref().kind()
+    }
+    fn material(&self) -> &Material {
+        self.as_ref().material()
+    }
+    fn length(&self) -> Length {
+        self.as_ref().length()
+    }
+    fn primary(&self) -> LoadComponent {
+        self.as_ref().primary()
+    }
+    fn sites(&self) -> Vec<Site> {
+        self.as_ref().sites()
+    }
+    fn surface_stress(&self, site: &Site, load: &Wrench) -> Result<SurfaceStress, PhysicsError> {
+        self.as_ref().surface_stress(site, load)
+    }
+    fn surface_strain(&self, site: &Site, load: &Wrench) -> Result<SurfaceStrain, PhysicsError> {
+        self.as_ref().surface_strain(site, load)
+    }
+    fn peak_stress(&self, load: &Wrench) -> Result<PeakStress, PhysicsError> {
+        self.as_ref().peak_stress(load)
+    }
+    fn stiffness(&self) -> Stiffness {
+        self.as_ref().stiffness()
+    }
+    fn rayleigh_share(&self) -> (f64, f64) {
+        self.as_ref().rayleigh_share()
+    }
+    fn frequency_model(&self) -> &'static str {
+        self.as_ref().frequency_model()
+    }
+    fn buckling_load(&self) -> Option<Force> {
+        self.as_ref().buckling_load()
     }
 }

@@ -36,6 +36,11 @@ pub enum LoadComponent {
 
 impl LoadComponent {
     /// The six components in the order Fx Fy Fz Mx My Mz (the order of response-matrix columns).
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::LoadComponent::ALL[3], gaugebook::LoadComponent::Mx);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub const ALL: [LoadComponent; 6] = [
         LoadComponent::Fx,
         LoadComponent::Fy,

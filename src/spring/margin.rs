@@ -16,6 +16,11 @@ use super::load::Wrench;
 use crate::error::PhysicsError;
 
 /// The caution attached to every reported margin.
+///
+/// ```
+/// assert!(gaugebook::MARGIN_CAUTION.contains("licensed practice"));
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 pub const MARGIN_CAUTION: &str = "design estimates must be proven by test; overload and \
 lifting uses follow local codes and licensed practice";
 
@@ -74,11 +79,21 @@ impl OverloadFactors {
     }
 
     /// The safe overload as a multiple of the rated load.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OverloadFactors::new(1.25, 2.0)?.safe(), 1.25);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn safe(&self) -> f64 {
         self.safe
     }
 
     /// The ultimate overload as a multiple of the rated load.
+    ///
+    /// ```
+    /// assert_eq!(gaugebook::OverloadFactors::default().ultimate(), 3.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn ultimate(&self) -> f64 {
         self.ultimate
     }
@@ -88,6 +103,18 @@ impl OverloadFactors {
 ///
 /// A factor below 1 means the model predicts yield (or fracture, fatigue failure, buckling) at
 /// that level; above yield the linear model itself no longer holds.
+///
+/// ```
+/// use gaugebook::{Cantilever, LoadComponent, OverloadFactors, SpringElement, Wrench, material};
+/// use gaugebook::units::Length;
+/// use uom::si::length::millimeter;
+/// let mm = Length::new::<millimeter>;
+/// let b = Cantilever::new(material("7075-T6")?, mm(100.0), mm(20.0), mm(6.0), mm(30.0))?;
+/// let m = b.margins(&Wrench::only(LoadComponent::Fz, 100.0), &OverloadFactors::default())?;
+/// assert_eq!(m.ultimate.level, "ultimate overload");
+/// assert!((m.rated.yield_factor / m.ultimate.yield_factor - 3.0).abs() < 1e-9);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Debug, Clone, PartialEq)]
 pub struct MarginAt {
     /// "rated", "safe overload" or "ultimate overload".

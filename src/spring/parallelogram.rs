@@ -82,6 +82,16 @@ pub struct Parallelogram {
 impl Parallelogram {
     /// Flexures of `length`, `width` (Y) and `thickness` h (Z), mid-planes `spacing` H apart,
     /// gauge stations `station` a from each end of the flexures.
+    ///
+    /// ```
+    /// use gaugebook::{Parallelogram, material};
+    /// use gaugebook::units::Length;
+    /// use uom::si::length::millimeter;
+    /// let mm = Length::new::<millimeter>;
+    /// // Flexures 2 mm thick only 4 mm apart: the pair is not a parallelogram.
+    /// assert!(Parallelogram::new(material("2024")?, mm(40.0), mm(20.0), mm(2.0), mm(4.0), mm(8.0)).is_err());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(
         material: Material,
         length: Length,

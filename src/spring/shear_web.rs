@@ -55,6 +55,16 @@ pub struct ShearWeb {
 impl ShearWeb {
     /// A beam of `length`, overall `depth` h, `flange_width`, `flange_thickness`,
     /// `web_thickness`, with the standard sites at `station` from the fixed end.
+    ///
+    /// ```
+    /// use gaugebook::{ShearWeb, material};
+    /// use gaugebook::units::Length;
+    /// use uom::si::length::millimeter;
+    /// let mm = Length::new::<millimeter>;
+    /// // A 15 mm thick web on a 40 mm deep beam is not thin-walled.
+    /// assert!(ShearWeb::new(material("4340")?, mm(150.0), mm(40.0), mm(30.0), mm(5.0), mm(15.0), mm(75.0)).is_err());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(
         material: Material,
         length: Length,

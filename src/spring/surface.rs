@@ -39,6 +39,13 @@ pub struct SurfaceStrain {
 
 impl SurfaceStrain {
     /// A strain tensor from its components.
+    ///
+    /// ```
+    /// use gaugebook::{Strain, SurfaceStrain};
+    /// let s = SurfaceStrain::new(Strain::new(1e-3), Strain::ZERO, Strain::ZERO);
+    /// assert_eq!(s.exx.value(), 1e-3);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(exx: Strain, eyy: Strain, gxy: Strain) -> SurfaceStrain {
         SurfaceStrain { exx, eyy, gxy }
     }
@@ -118,6 +125,15 @@ pub struct SurfaceStress {
 
 impl SurfaceStress {
     /// A stress state from its components.
+    ///
+    /// ```
+    /// use gaugebook::SurfaceStress;
+    /// use gaugebook::units::Stress;
+    /// use uom::si::pressure::megapascal;
+    /// let s = SurfaceStress::new(Stress::new::<megapascal>(10.0), Stress::new::<megapascal>(0.0), Stress::new::<megapascal>(0.0));
+    /// assert_eq!(s.sxx.get::<megapascal>(), 10.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(sxx: Stress, syy: Stress, txy: Stress) -> SurfaceStress {
         SurfaceStress { sxx, syy, txy }
     }
@@ -211,6 +227,12 @@ pub enum Face {
 
 impl Face {
     /// The direction φ of the outward normal in the Y–Z plane, from +Y towards +Z.
+    ///
+    /// ```
+    /// use uom::si::angle::degree;
+    /// assert!((gaugebook::Face::MinusY.normal_angle().get::<degree>() - 180.0).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn normal_angle(&self) -> Angle {
         use std::f64::consts::PI;
         match self {
@@ -279,6 +301,13 @@ pub struct Site {
 
 impl Site {
     /// A site on the element's body, on the face's centre line.
+    ///
+    /// ```
+    /// use gaugebook::{Face, Part, Site};
+    /// let s = Site::new("top", Face::PlusZ, Default::default());
+    /// assert_eq!(s.part, Part::Body);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn new(name: impl Into<String>, face: Face, x: Length) -> Site {
         Site {
             name: name.into(),
@@ -302,6 +331,15 @@ impl Site {
     }
 
     /// The same site moved by `dx` along the axis and `dy` along the surface y axis.
+    ///
+    /// ```
+    /// use gaugebook::{Face, Site};
+    /// use gaugebook::units::Length;
+    /// use uom::si::length::millimeter;
+    /// let s = Site::new("top", Face::PlusZ, Length::new::<millimeter>(5.0)).moved(Length::new::<millimeter>(1.0), Length::default());
+    /// assert!((s.x.get::<millimeter>() - 6.0).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn moved(&self, dx: Length, dy: Length) -> Site {
         let mut s = self.clone();
         s.x += dx;

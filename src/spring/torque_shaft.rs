@@ -47,6 +47,16 @@ pub struct TorqueShaft {
 
 impl TorqueShaft {
     /// A solid shaft of `diameter` and `length`, standard sites at `station`.
+    ///
+    /// ```
+    /// use gaugebook::{TorqueShaft, material};
+    /// use gaugebook::units::Length;
+    /// use uom::si::length::millimeter;
+    /// let mm = Length::new::<millimeter>;
+    /// // Gauges 10 mm from the end of a 20 mm shaft: too close.
+    /// assert!(TorqueShaft::solid(material("4340")?, mm(20.0), mm(100.0), mm(10.0)).is_err());
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn solid(
         material: Material,
         diameter: Length,

@@ -13,8 +13,9 @@
 //!   20 and 30 min ≤ 0.15 |MPE|, the MPE taken with a fixed apportioning factor whatever p_LC is
 //!   declared (R 60-1 5.5.1; the factor's value is not legible in the copy: 0.7, from memory);
 //! - minimum dead load output return DR ≤ 0.5 v (R 60-3 2.1.5.5, R 60-1 5.5.2; the unit is
-//!   not legible in the copy: v, from memory); Z = E_max/(2 DR) (R 60-1 3.5, relative minimum
-//!   dead load output return);
+//!   not legible in the copy: v, from memory); Z, the relative minimum dead load output return,
+//!   is the maximum measuring range (E_min to E_max) over 2 DR (R 60-1 3.5), so
+//!   Z = (E_max − E_min)/(2 DR);
 //! - the change of the minimum dead load output, per 5 °C for classes B, C, D or per 2 °C for
 //!   class A, in units of v_min, must not exceed p_LC (R 60-3 2.1.4; R 60 (2000) erratum C.2.4.4);
 //! - the test interval v = (D_max − D_min)/n_max with v_min ≤ v (R 60 (2000) erratum C.4.4).
@@ -24,7 +25,8 @@
 //! - Table 4 bands: p_LC × 0.5 v, 1.0 v, 1.5 v for loads (in v) A: 0–50 000–200 000–; B:
 //!   0–5 000–20 000–; C: 0–500–2 000–; D: 0–50–200–;
 //! - repeatability: the difference between repeated results at one load ≤ |MPE| (R 60-1 5.4);
-//! - Y = E_max/v_min (R 60-1 3.5). The temperature effect on span is covered by applying the
+//! - Y = (E_max − E_min)/v_min, the maximum measuring range over v_min (R 60-1 3.5; the 2000
+//!   edition wrote E_max/v_min, the same for E_min = 0). The temperature effect on span is covered by applying the
 //!   MPE to the run at each test temperature (R 60-1 5.3.2 includes it).
 //!
 //! A computed class verdict is not a type approval or a legal-for-trade certificate; that
@@ -154,7 +156,7 @@ pub struct R60LoadCell {
     pub v_min: f64,
     /// Apportionment factor p_LC (0.7 unless declared).
     pub p_lc: f64,
-    /// Declared Z = E_max/(2 DR), if any.
+    /// Declared Z = (E_max − E_min)/(2 DR), if any.
     pub z: Option<f64>,
     /// Fraction of the maximum test load the reference line passes through (0.75, from memory).
     pub reference_fraction: f64,
@@ -221,7 +223,7 @@ impl R60LoadCell {
         Ok(self)
     }
 
-    /// Y = E_max / v_min.
+    /// Y = (E_max − E_min)/v_min (R 60-1:2021 3.5).
     ///
     /// ```
     /// let c = gaugebook::R60LoadCell::new(gaugebook::OimlClass::C, 3000, 1e4, 0.0, 1.0)?;
@@ -229,7 +231,7 @@ impl R60LoadCell {
     /// # Ok::<(), gaugebook::PhysicsError>(())
     /// ```
     pub fn y(&self) -> f64 {
-        self.e_max / self.v_min
+        (self.e_max - self.e_min) / self.v_min
     }
 
     /// The verification interval used in the test: v = (D_max − D_min)/n_max over the measuring
@@ -442,9 +444,9 @@ pub fn evaluate_r60(
             checks.push(Check::at_most(
                 "DR against the declared Z",
                 dr,
-                cell.e_max / (2.0 * z),
+                (cell.e_max - cell.e_min) / (2.0 * z),
                 "N",
-                "OIML R 60-1:2021 3.5, Z = E_max/(2 DR)",
+                "OIML R 60-1:2021 3.5, Z = (E_max − E_min)/(2 DR)",
             ));
         }
     }

@@ -8,6 +8,7 @@
 //! in SI base units. Numbers carry 6 significant figures with trailing zeros trimmed. Every
 //! form written here parses back ([`Quantity::parse`](crate::Quantity::parse)).
 
+use super::parse::superscript;
 use super::{Dimension, Kind};
 
 /// Significant figures in displayed numbers: enough for a 0.02 % calibration, few enough to
@@ -17,6 +18,12 @@ pub(crate) const SIGNIFICANT: i32 = 6;
 /// A number with [`SIGNIFICANT`] figures, trailing zeros trimmed; scientific notation outside
 /// 1e-4 … 1e9.
 pub(crate) fn number(v: f64) -> String {
+    number_sig(v, SIGNIFICANT)
+}
+
+/// [`number`] with `sig` significant figures (1 … 17).
+pub(crate) fn number_sig(v: f64, sig: i32) -> String {
+    let sig = sig.clamp(1, 17);
     if v == 0.0 {
         return "0".into();
     }
@@ -25,14 +32,14 @@ pub(crate) fn number(v: f64) -> String {
     }
     let mag = v.abs().log10().floor() as i32;
     if !(-4..9).contains(&mag) {
-        let s = format!("{:.*e}", (SIGNIFICANT - 1) as usize, v);
+        let s = format!("{:.*e}", (sig - 1) as usize, v);
         // `{:e}` writes `1.23400e-5`: trim the mantissa's trailing zeros.
         return match s.split_once('e') {
             Some((m, e)) => format!("{}e{e}", trim(m)),
             None => s,
         };
     }
-    let decimals = (SIGNIFICANT - 1 - mag).max(0) as usize;
+    let decimals = (sig - 1 - mag).max(0) as usize;
     let s = trim(&format!("{v:.decimals$}"));
     if s == "-0" { "0".into() } else { s }
 }
@@ -192,17 +199,104 @@ pub(crate) fn auto(si: f64, dim: Dimension, kind: Kind) -> (f64, String) {
                 let e = engineering(g, 1, -9, 0);
                 (g / 10f64.powi(e), format!("{}g", prefix_symbol(e)))
             }
-            None => (si, dim.to_string()),
+            None => (si, compound(dim).unwrap_or_else(|| dim.to_string())),
         },
     }
 }
 
-/// `value unit`, or the bare number for an empty unit.
-pub(crate) fn join(value: f64, unit: &str) -> String {
-    if unit.is_empty() {
-        number(value)
+/// Named units that may appear in a compound display, in order of preference.
+const COMPOUND_NAMED: [(&str, Dimension); 7] = [
+    ("W", Dimension([2, 1, -3, 0, 0, 0, 0])),
+    ("V", Dimension([2, 1, -3, -1, 0, 0, 0])),
+    ("Ω", Dimension([2, 1, -3, -2, 0, 0, 0])),
+    ("A", Dimension([0, 0, 0, 1, 0, 0, 0])),
+    ("N", Dimension([1, 1, -2, 0, 0, 0, 0])),
+    ("Pa", Dimension([-1, 1, -2, 0, 0, 0, 0])),
+    ("J", Dimension([2, 1, -2, 0, 0, 0, 0])),
+];
+
+/// A short compound for a dimension with no named unit: at most two named units (each to the
+/// power ±1) times powers of m, kg, s and K, choosing the fewest symbols (`W/(m·K)`, `V/N`,
+/// `Ω·m`, `1/Ω`). `None` when nothing beats the base-unit form.
+fn compound(dim: Dimension) -> Option<String> {
+    let base = |d: Dimension| d.0[3] == 0 && d.0[5] == 0 && d.0[6] == 0;
+    let weight = |d: Dimension| d.0.iter().map(|e| i32::from(e.unsigned_abs())).sum::<i32>();
+    // (score, named units with their powers, remaining base dimension)
+    type Candidate = (i32, Vec<(&'static str, i32)>, Dimension);
+    let mut best: Option<Candidate> = None;
+    let mut consider = |named: Vec<(&'static str, i32)>, rest: Dimension| {
+        if !base(rest) {
+            return;
+        }
+        let score = named.len() as i32 + weight(rest);
+        if best.as_ref().is_none_or(|b| score < b.0) {
+            best = Some((score, named, rest));
+        }
+    };
+    for (i, &(a, da)) in COMPOUND_NAMED.iter().enumerate() {
+        for pa in [1, -1] {
+            let r1 = dim / da.powi(pa);
+            consider(vec![(a, pa)], r1);
+            for &(b, db) in &COMPOUND_NAMED[i + 1..] {
+                for pb in [1, -1] {
+                    consider(vec![(a, pa), (b, pb)], r1 / db.powi(pb));
+                }
+            }
+        }
+    }
+    let (score, named, rest) = best?;
+    if score >= weight(dim) {
+        return None;
+    }
+    let mut num: Vec<String> = Vec::new();
+    let mut den: Vec<String> = Vec::new();
+    for (sym, p) in named {
+        if p > 0 {
+            num.push(sym.into())
+        } else {
+            den.push(sym.into())
+        }
+    }
+    for (sym, &e) in Dimension::BASE_SYMBOLS.iter().zip(rest.0.iter()) {
+        let e = i32::from(e);
+        let part = |n: i32| {
+            if n == 1 {
+                sym.to_string()
+            } else {
+                format!("{sym}{}", superscript(n))
+            }
+        };
+        match e.signum() {
+            1 => num.push(part(e)),
+            -1 => den.push(part(-e)),
+            _ => {}
+        }
+    }
+    let num = if num.is_empty() {
+        "1".to_string()
     } else {
-        format!("{} {unit}", number(value))
+        num.join("·")
+    };
+    Some(match den.len() {
+        0 => num,
+        1 => format!("{num}/{}", den[0]),
+        _ => format!("{num}/({})", den.join("·")),
+    })
+}
+
+/// `value unit`, or the bare number for an empty unit (the tests' shorthand).
+#[cfg(test)]
+fn join(value: f64, unit: &str) -> String {
+    join_sig(value, unit, SIGNIFICANT)
+}
+
+/// `value unit` with `sig` significant figures, or the bare number for an empty unit.
+pub(crate) fn join_sig(value: f64, unit: &str, sig: i32) -> String {
+    let n = number_sig(value, sig);
+    if unit.is_empty() {
+        n
+    } else {
+        format!("{n} {unit}")
     }
 }
 
@@ -221,6 +315,9 @@ mod tests {
         assert_eq!(number(2.0e12), "2e12");
         assert_eq!(number(-0.0), "0");
         assert_eq!(number(-1e-7 / 3.0), "-3.33333e-8");
+        assert_eq!(number_sig(2.0 / 3.0, 3), "0.667");
+        assert_eq!(number_sig(123456.0, 2), "123456");
+        assert_eq!(number_sig(1.5e-6, 1), "2e-6");
     }
 
     #[test]
@@ -245,6 +342,22 @@ mod tests {
         assert_eq!(join_auto(0.5, Dimension::MASS), "500 g");
         assert_eq!(join_auto(2.5, Dimension::MASS), "2.5 kg");
         assert_eq!(join_auto(1e-6, Dimension::MASS), "1 mg");
+    }
+
+    #[test]
+    fn compounds_with_named_units() {
+        let w = Dimension([2, 1, -3, 0, 0, 0, 0]);
+        let k = Dimension::TEMPERATURE;
+        let m = Dimension::LENGTH;
+        assert_eq!(compound(w / (m * k)).as_deref(), Some("W/(m·K)"));
+        let v = Dimension([2, 1, -3, -1, 0, 0, 0]);
+        let n = Dimension([1, 1, -2, 0, 0, 0, 0]);
+        assert_eq!(compound(v / n).as_deref(), Some("V/N"));
+        let ohm = Dimension([2, 1, -3, -2, 0, 0, 0]);
+        assert_eq!(compound(ohm * m).as_deref(), Some("Ω·m"));
+        assert_eq!(compound(ohm.powi(-1)).as_deref(), Some("1/Ω"));
+        // Nothing shorter than the base units for m·s.
+        assert_eq!(compound(m * Dimension::TIME), None);
     }
 
     fn join_auto(si: f64, dim: Dimension) -> String {

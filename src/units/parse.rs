@@ -350,6 +350,11 @@ impl Parser<'_> {
                     self.i += 1;
                     acc = acc.mul(self.power()?);
                 }
+                Some(Tok::Minus) if matches!(self.toks.get(self.i + 1), Some((Tok::Num(_), _))) => {
+                    return Err(self
+                        .lex
+                        .malformed(self.pos(), "write a negative power as `^-2` or `⁻²`"));
+                }
                 Some(Tok::Sym(_)) | Some(Tok::LParen) => acc = acc.mul(self.power()?),
                 _ => return Ok(acc),
             }
@@ -422,6 +427,18 @@ impl Parser<'_> {
                 self.i += 1;
                 match table::resolve(&s) {
                     Some(r) => Ok(Term::from_resolved(r)),
+                    // `m2`, `mm3`: a known symbol with digits glued on is a power written
+                    // without `^`; say so rather than "unknown unit".
+                    None if power_without_caret(&s) => Err(self.lex.malformed(
+                        at,
+                        &format!(
+                            "write a power with `^` or superscripts (`{}`), not `{s}`",
+                            {
+                                let stem = s.trim_end_matches(|c: char| c.is_ascii_digit());
+                                format!("{stem}^{}", &s[stem.len()..])
+                            }
+                        ),
+                    )),
                     None => Err(UnitError::UnknownUnit {
                         text: self.lex.text.to_string(),
                         symbol: s,
@@ -452,6 +469,13 @@ impl Parser<'_> {
             None => Err(self.lex.malformed(at, "the unit ends early")),
         }
     }
+}
+
+/// True for a known symbol followed by digits (`m2`, `mm3`), but not for a table symbol that
+/// contains digits itself (`g0`).
+fn power_without_caret(s: &str) -> bool {
+    let stem = s.trim_end_matches(|c: char| c.is_ascii_digit());
+    stem.len() < s.len() && !stem.is_empty() && table::resolve(stem).is_some()
 }
 
 fn describe(t: &Tok) -> String {

@@ -174,6 +174,12 @@ impl Quantity {
             text: text.to_string(),
             reason: format!("`{num}` is not a number"),
         })?;
+        if !value.is_finite() {
+            return Err(UnitError::BadQuantity {
+                text: text.to_string(),
+                reason: format!("`{num}` is too large for a 64-bit float"),
+            });
+        }
         let unit = parse::parse_unit_in(text, i)?;
         Ok(Quantity::in_unit(value, Arc::new(unit)))
     }
@@ -566,14 +572,25 @@ impl Quantity {
 }
 
 /// Writes the value in its display unit, else in a unit chosen from its dimension and kind,
-/// with 6 significant figures: `0.4995 mV/V`, `1000 µε`, `174.65 kΩ`.
+/// with 6 significant figures (`{:.3}` asks for 3): `0.4995 mV/V`, `1000 µε`, `174.65 kΩ`.
+///
+/// ```
+/// use gaugebook::units::Quantity;
+/// let r = Quantity::parse("350 ohm")?.scale(1.0 / 3.0);
+/// assert_eq!(r.to_string(), "116.667 Ω");
+/// assert_eq!(format!("{r:.3}"), "117 Ω");
+/// # Ok::<(), gaugebook::units::UnitError>(())
+/// ```
 impl fmt::Display for Quantity {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let sig = f
+            .precision()
+            .map_or(format::SIGNIFICANT, |p| p.min(17) as i32);
         let s = match &self.unit {
-            Some(u) => format::join(u.from_si(self.si), u.symbol()),
+            Some(u) => format::join_sig(u.from_si(self.si), u.symbol(), sig),
             None => {
                 let (v, u) = format::auto(self.si, self.dim, self.kind);
-                format::join(v, &u)
+                format::join_sig(v, &u, sig)
             }
         };
         f.write_str(&s)
@@ -614,6 +631,15 @@ mod tests {
             Quantity::parse(""),
             Err(UnitError::BadQuantity { .. })
         ));
+    }
+
+    #[test]
+    fn overflowing_numbers() {
+        let e = Quantity::parse("1e400 V").unwrap_err();
+        assert_eq!(
+            e.to_string(),
+            "cannot read `1e400 V` as a quantity: `1e400` is too large for a 64-bit float"
+        );
     }
 
     #[test]

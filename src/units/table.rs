@@ -96,6 +96,11 @@ macro_rules! p {
 const ONE: Dimension = Dimension::NONE;
 
 /// The specification of the table, in the order the trade meets the units.
+///
+/// Left out on purpose: the coulomb `C` and the farad `F`, because `25 C` and `70 F` are the
+/// usual slips for °C and °F and would otherwise be read, silently, as a charge and a
+/// capacitance; the kelvin-like `KΩ` (write `kΩ`); the year `a`, the are `a` and the dalton `u`,
+/// which would shadow prefixes.
 fn specs() -> Vec<Spec> {
     use Kind::*;
     let uom = |display, aliases, probe, name, kind, prefixable| Spec {
@@ -439,10 +444,8 @@ pub(crate) fn resolve(symbol: &str) -> Option<Resolved> {
             kind: a.kind,
         });
     }
-    // Two-letter prefix (da) first, so `dam` is the decametre.
-    let mut by_len: Vec<&(&str, &str, f64)> = PREFIXES.iter().collect();
-    by_len.sort_by_key(|p| std::cmp::Reverse(p.0.len()));
-    for &&(p, shown, scale) in &by_len {
+    // PREFIXES lists `da` before `d`, so `dam` is the decametre.
+    for &(p, shown, scale) in PREFIXES {
         if let Some(rest) = symbol.strip_prefix(p)
             && let Some(a) = t.get(rest)
             && a.prefixable
@@ -530,6 +533,13 @@ mod tests {
         let mg: Mass = "1 mg".parse().unwrap();
         assert_eq!(resolve("mg").unwrap().factor, mg.value);
         assert_eq!(resolve("kg").unwrap().factor, 1.0);
+    }
+
+    #[test]
+    fn two_letter_prefix_comes_before_its_first_letter() {
+        let da = PREFIXES.iter().position(|p| p.0 == "da");
+        let d = PREFIXES.iter().position(|p| p.0 == "d");
+        assert!(da < d);
     }
 
     #[test]

@@ -1,0 +1,237 @@
+//! The execution thread: the one place the language engine lives and runs cells, so the sockets
+//! (control above all: interrupt and shutdown) stay responsive while a cell is busy.
+
+use std::panic::{AssertUnwindSafe, catch_unwind};
+use std::sync::atomic::{AtomicBool, Ordering};
+use std::sync::{Arc, Mutex, OnceLock, mpsc};
+
+use serde_json::{Value, json};
+use tokio::sync::oneshot;
+
+use super::KernelError;
+use super::backend::{Backend, CellError, CodeStatus, CompletionSet, Interrupter, KernelOutput};
+use super::iopub::Iopub;
+use crate::MimeBundle;
+
+/// Work for the execution thread; each carries the channel its answer goes back on.
+pub(crate) enum Job {
+    Execute {
+        code: String,
+        origin: String,
+        parent: Value,
+        silent: bool,
+        reply: oneshot::Sender<Result<Option<MimeBundle>, CellError>>,
+    },
+    Complete {
+        code: String,
+        cursor: usize,
+        reply: oneshot::Sender<CompletionSet>,
+    },
+    Inspect {
+        code: String,
+        cursor: usize,
+        reply: oneshot::Sender<Option<String>>,
+    },
+    IsComplete {
+        code: String,
+        reply: oneshot::Sender<CodeStatus>,
+    },
+}
+
+/// The output sink a cell writes to: IOPub messages whose parent is the running request.
+pub(crate) struct CellOutput {
+    iopub: Iopub,
+    parent: Mutex<Value>,
+    silent: AtomicBool,
+}
+
+impl CellOutput {
+    fn parent(&self) -> Value {
+        // A poisoned lock only means a panic elsewhere while holding it; the header inside is
+        // still a whole JSON value, so keep using it.
+        self.parent
+            .lock()
+            .unwrap_or_else(|p| p.into_inner())
+            .clone()
+    }
+
+    fn send(&self, msg_type: &str, content: Value) {
+        if !self.silent.load(Ordering::Relaxed) {
+            self.iopub.publish(&self.parent(), msg_type, content);
+        }
+    }
+}
+
+impl KernelOutput for CellOutput {
+    fn stdout(&self, text: &str) {
+        self.send("stream", json!({"name": "stdout", "text": text}));
+    }
+
+    fn stderr(&self, text: &str) {
+        self.send("stream", json!({"name": "stderr", "text": text}));
+    }
+
+    fn display(&self, bundle: MimeBundle, display_id: Option<String>, update: bool) {
+        let transient = match &display_id {
+            Some(id) => json!({"display_id": id}),
+            None => json!({}),
+        };
+        let kind = if update && display_id.is_some() {
+            "update_display_data"
+        } else {
+            "display_data"
+        };
+        self.send(
+            kind,
+            json!({"data": bundle_json(&bundle), "metadata": {}, "transient": transient}),
+        );
+    }
+
+    fn clear_output(&self, wait: bool) {
+        self.send("clear_output", json!({"wait": wait}));
+    }
+}
+
+/// A MIME bundle as the `data` object of a display message.
+pub(crate) fn bundle_json(bundle: &MimeBundle) -> Value {
+    let mut map = serde_json::Map::new();
+    for (mime, content) in bundle.iter() {
+        // JSON types (application/json and the +json family) travel as JSON, not as a string.
+        let value = if mime == "application/json" || mime.ends_with("+json") {
+            serde_json::from_str(content).unwrap_or_else(|_| Value::String(content.to_string()))
+        } else {
+            Value::String(content.to_string())
+        };
+        map.insert(mime.to_string(), value);
+    }
+    Value::Object(map)
+}
+
+/// The running engine as the rest of the kernel sees it.
+pub(crate) struct Executor {
+    pub jobs: mpsc::Sender<Job>,
+    interrupter: Arc<OnceLock<Interrupter>>,
+    running: Arc<AtomicBool>,
+}
+
+impl Executor {
+    /// Starts the thread, which builds the engine with `make`. Returns at once, so the sockets
+    /// answer kernel_info while the engine loads; jobs sent meanwhile wait in the queue. If the
+    /// engine cannot be built, the error arrives on the returned receiver.
+    pub fn start<B, F>(
+        make: F,
+        iopub: Iopub,
+    ) -> Result<(Executor, oneshot::Receiver<KernelError>), KernelError>
+    where
+        B: Backend + 'static,
+        F: FnOnce() -> Result<B, KernelError> + Send + 'static,
+    {
+        let (job_tx, job_rx) = mpsc::channel::<Job>();
+        let (fail_tx, fail_rx) = oneshot::channel::<KernelError>();
+        let running = Arc::new(AtomicBool::new(false));
+        let interrupter = Arc::new(OnceLock::new());
+        let (flag, slot) = (running.clone(), interrupter.clone());
+        let output = Arc::new(CellOutput {
+            iopub,
+            parent: Mutex::new(json!({})),
+            silent: AtomicBool::new(false),
+        });
+        std::thread::Builder::new()
+            .name("gaugebook-exec".into())
+            .spawn(move || {
+                let mut backend = match make() {
+                    Ok(b) => b,
+                    Err(e) => {
+                        let _ = fail_tx.send(e);
+                        return;
+                    }
+                };
+                backend.set_output(output.clone());
+                let _ = slot.set(backend.interrupter());
+                serve(&mut backend, &output, &flag, job_rx);
+            })
+            .map_err(|e| KernelError::Backend(format!("cannot start the execution thread: {e}")))?;
+        Ok((
+            Executor {
+                jobs: job_tx,
+                interrupter,
+                running,
+            },
+            fail_rx,
+        ))
+    }
+
+    /// Stops the running cell, if one runs (an interrupt while idle is a no-op, so it cannot
+    /// break the next cell).
+    pub fn interrupt(&self) {
+        if self.running.load(Ordering::SeqCst)
+            && let Some(stop) = self.interrupter.get()
+        {
+            stop();
+        }
+    }
+}
+
+fn serve<B: Backend>(
+    backend: &mut B,
+    output: &CellOutput,
+    running: &AtomicBool,
+    jobs: mpsc::Receiver<Job>,
+) {
+    while let Ok(job) = jobs.recv() {
+        match job {
+            Job::Execute {
+                code,
+                origin,
+                parent,
+                silent,
+                reply,
+            } => {
+                *output.parent.lock().unwrap_or_else(|p| p.into_inner()) = parent;
+                output.silent.store(silent, Ordering::Relaxed);
+                running.store(true, Ordering::SeqCst);
+                let result = catch_unwind(AssertUnwindSafe(|| backend.execute(&code, &origin)));
+                running.store(false, Ordering::SeqCst);
+                output.silent.store(false, Ordering::Relaxed);
+                let result = result.unwrap_or_else(|panic| Err(panic_error(&*panic)));
+                let _ = reply.send(result);
+            }
+            Job::Complete {
+                code,
+                cursor,
+                reply,
+            } => {
+                let r = catch_unwind(AssertUnwindSafe(|| backend.complete(&code, cursor)));
+                let _ = reply.send(r.unwrap_or_default());
+            }
+            Job::Inspect {
+                code,
+                cursor,
+                reply,
+            } => {
+                let r = catch_unwind(AssertUnwindSafe(|| backend.inspect(&code, cursor)));
+                let _ = reply.send(r.unwrap_or(None));
+            }
+            Job::IsComplete { code, reply } => {
+                let r = catch_unwind(AssertUnwindSafe(|| backend.is_complete(&code)));
+                let _ = reply.send(r.unwrap_or(CodeStatus::Invalid));
+            }
+        }
+    }
+}
+
+/// A panic inside the engine (a native function's bug) as a cell error, so the kernel lives on.
+fn panic_error(panic: &(dyn std::any::Any + Send)) -> CellError {
+    let what = panic
+        .downcast_ref::<&str>()
+        .map(|s| s.to_string())
+        .or_else(|| panic.downcast_ref::<String>().cloned())
+        .unwrap_or_else(|| "unknown panic".to_string());
+    CellError {
+        ename: "InternalError".into(),
+        evalue: format!("a native function panicked: {what}"),
+        traceback: vec![format!(
+            "internal error: a native function panicked: {what}"
+        )],
+    }
+}
