@@ -6,10 +6,15 @@ mod chain;
 #[cfg(feature = "cli")]
 mod cli;
 mod common;
+mod data;
+#[cfg(feature = "cli")]
+mod demo;
 mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
 mod layout;
+#[cfg(feature = "script")]
+mod notebook;
 #[cfg(feature = "plot")]
 mod plot;
 mod rosette;
