@@ -4,6 +4,7 @@ mod bridge;
 mod calib;
 mod chain;
 mod common;
+mod examples;
 mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
