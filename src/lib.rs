@@ -120,6 +120,5 @@ mod kernel;
 pub use kernel::{
     Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
     KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
-    run_kernel_with,
-    uninstall_kernelspec,
+    run_kernel_with, uninstall_kernelspec,
 };

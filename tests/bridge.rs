@@ -616,3 +616,122 @@ fn offset_trim_from_the_nominal_model_cancels_a_real_offset_to_first_order() {
     let exact = real.with_arm(ArmId::R2, real.arm(ArmId::R2).with_trim(t));
     assert!(exact.output_ratio().value().abs() < 1e-16);
 }
+
+/// The stdlib's arm-by-arm arrangements (stdlib/bridges.rhai) against the closed forms of
+/// `bridge()`: closed-form identity through the script surface.
+#[cfg(feature = "script")]
+#[test]
+fn stdlib_bridges_reproduce_the_named_arrangements() {
+    use gaugebook::script::{Session, SessionOptions};
+    let mut s = Session::new(SessionOptions::default()).expect("session");
+    let code = r#"
+        import "bridges" as b;
+        let g = gauge(#{ r0: 350.0 * ohm, gf: 2.1 });
+        let worst = 0.0;
+        for name in ["quarter", "half-bending", "half-poisson", "full-bending", "full-poisson", "full-shear"] {
+            for ue in [-3000.0, -10.0, 0.0, 750.0, 20000.0] {
+                let e = q(ue, "ue");
+                let closed = bridge(name, g, #{ nu: 0.3 }).output(e);
+                let built = b::named(name, g, e, 0.3).ratio();
+                let d = abs((built - closed).value("V/V"));
+                if d > worst { worst = d; }
+            }
+        }
+        worst
+    "#;
+    let out = s
+        .eval_cell(code, "stdlib test")
+        .unwrap_or_else(|e| panic!("{}", e.render()));
+    let text = out
+        .value
+        .and_then(|b| b.get("text/plain").map(str::to_string))
+        .unwrap_or_default();
+    let worst: f64 = text
+        .trim()
+        .parse()
+        .unwrap_or_else(|_| panic!("not a number: {text}"));
+    // The general bridge's rounding near balance is absolute, about 1e-16 V/V.
+    assert!(worst < 1e-15, "largest difference {worst} V/V");
+    let bad = s.eval_cell(r#"import "bridges" as b; b::named("eighth", gauge(#{ r0: 350.0 * ohm, gf: 2.0 }), q("1 ue"), 0.3)"#, "bad");
+    assert!(bad.is_err());
+}
+
+/// Bad parameters through the script surface are catchable errors of the physics kind.
+#[cfg(feature = "script")]
+#[test]
+fn script_bad_parameters_are_typed_errors() {
+    use gaugebook::script::{Session, SessionOptions};
+    let mut s = Session::new(SessionOptions::default()).expect("session");
+    let cases = [
+        (r#"gauge(#{ r0: -350.0 * ohm, gf: 2.0 })"#, "PhysicsError"),
+        (r#"gauge(#{ r0: 350.0 * ohm, gf: 0.0 })"#, "PhysicsError"),
+        (
+            r#"gauge(#{ r0: 350.0 * ohm, gf: 2.0, gain: 3 })"#,
+            "ArgumentError",
+        ),
+        (
+            r#"bridge("half-poisson", gauge(#{ r0: 350.0 * ohm, gf: 2.0 }))"#,
+            "ArgumentError",
+        ),
+        (
+            r#"bridge("full-poisson", gauge(#{ r0: 350.0 * ohm, gf: 2.0 }), #{ nu: 0.5 })"#,
+            "PhysicsError",
+        ),
+        (
+            r#"bridge("quarter", gauge(#{ r0: 350.0 * ohm, gf: 2.0 })).strain(q("600 mV/V"))"#,
+            "PhysicsError",
+        ),
+        (
+            r#"bridge("quarter", gauge(#{ r0: 350.0 * ohm, gf: 2.0 })).gauge_power(q("-5 V"))"#,
+            "PhysicsError",
+        ),
+        (
+            r#"signal_chain(#{ excitation: q("0 V"), gain: 128, bits: 24, ratiometric: 1.0 })"#,
+            "PhysicsError",
+        ),
+        (
+            r#"plane_stress(q("1 ue"), q("1 ue"), q("0 ue"), #{ E: q("200 GPa"), nu: 0.7 })"#,
+            "PhysicsError",
+        ),
+    ];
+    for (code, kind) in cases {
+        match s.eval_cell(code, "bad") {
+            Ok(out) => panic!("{code}: expected an error, got {:?}", out.value),
+            Err(e) => {
+                if !kind.is_empty() {
+                    assert_eq!(e.kind, kind, "{code}: {}", e.render());
+                }
+            }
+        }
+    }
+}
+
+#[cfg(feature = "script")]
+#[test]
+fn script_values_print_readably() {
+    use gaugebook::script::{Session, SessionOptions};
+    let mut s = Session::new(SessionOptions::default()).expect("session");
+    let mut show = |code: &str| {
+        let out = s
+            .eval_cell(code, "show")
+            .unwrap_or_else(|e| panic!("{}", e.render()));
+        out.value
+            .and_then(|b| b.get("text/plain").map(str::to_string))
+            .unwrap_or_default()
+    };
+    let g = r#"let g = gauge(#{ r0: 350.0 * ohm, gf: 2.0 }); "#;
+    assert_eq!(show(&format!("{g} g")), "gauge 350 Ω, GF 2");
+    assert_eq!(
+        show(&format!(r#"{g} bridge("quarter", g).output(q("1000 ue"))"#)),
+        "0.4995 mV/V"
+    );
+    let c = show(&format!(
+        r#"{g} bridge("quarter", g).shunt_cal(#{{ arm: 1, shunt: q("174.65 kohm") }})"#
+    ));
+    assert!(
+        c.starts_with("shunt calibration")
+            && c.contains("resistance-equivalent")
+            && c.contains("-1000 µε"),
+        "{c}"
+    );
+}

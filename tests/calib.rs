@@ -475,3 +475,114 @@ mod bad_input {
         assert!(f.inverse(f64::NAN).is_err());
     }
 }
+
+/// Inverse prediction uncertainty: for a straight line the first-order propagation equals the
+/// classical calibration formula u²(x) = s²/b² · (1/m + 1/n + (y − ȳ)²/(b² Sxx)) (Draper &
+/// Smith, Applied Regression Analysis, 3rd ed., §3.2, from memory), here on NIST StRD Norris.
+#[test]
+fn inverse_uncertainty_classical_formula() {
+    let x = [
+        0.2, 337.4, 118.2, 884.6, 10.1, 226.5, 666.3, 996.3, 448.6, 777.0, 558.2, 0.4, 0.6, 775.5,
+        666.9, 338.0, 447.5, 11.6, 556.0, 228.1, 995.8, 887.6, 120.2, 0.3, 0.3, 556.8, 339.1,
+        887.2, 999.0, 779.0, 11.1, 118.3, 229.2, 669.1, 448.9, 0.5,
+    ];
+    let y = [
+        0.1, 338.8, 118.1, 888.0, 9.2, 228.1, 668.5, 998.5, 449.1, 778.9, 559.2, 0.3, 0.1, 778.1,
+        668.8, 339.3, 448.9, 10.8, 557.7, 228.3, 998.0, 888.8, 119.6, 0.3, 0.6, 557.6, 339.3,
+        888.0, 998.5, 778.9, 10.2, 117.6, 228.9, 668.4, 449.2, 0.2,
+    ];
+    let f = Fit::new(&x, &y, FitModel::Linear).unwrap();
+    let (s, b, n, m) = (
+        f.residual_sd(),
+        f.coefficients()[1],
+        x.len() as f64,
+        3.0_f64,
+    );
+    let ybar = y.iter().sum::<f64>() / n;
+    let xbar = x.iter().sum::<f64>() / n;
+    let sxx: f64 = x.iter().map(|v| (v - xbar).powi(2)).sum();
+    for &y0 in &[5.0, 500.0, 950.0] {
+        let (_, u) = f.inverse_with_uncertainty(y0, s / m.sqrt()).unwrap();
+        let want = (s / b) * (1.0 / m + 1.0 / n + (y0 - ybar).powi(2) / (b * b * sxx)).sqrt();
+        assert_close(u, want, 1e-9, 0.0);
+    }
+}
+
+#[cfg(feature = "script")]
+mod stdlib_characterise {
+    //! The stdlib procedure `characterise.rhai`: a calibration log to figures and a verdict in
+    //! one call. The log is synthetic (closed-form figures): a 10 kN, 2 mV/V cell with a
+    //! 0.002 mV/V bow at mid-span (terminal nonlinearity 0.1 % RO) and descending readings
+    //! 0.001 mV/V high at the interior steps (hysteresis 0.05 % RO).
+    use gaugebook::script::{Session, SessionOptions};
+
+    #[test]
+    fn bad_script_input_is_a_clear_error() {
+        let mut s = Session::new(SessionOptions::default()).expect("session");
+        let cases = [
+            (
+                r#"calibration_run(column([0.0, 1.0], "V"), column([0.0, 1.0], "mV/V"), "ascending")"#,
+                "loads must be forces (N) or torques (N·m)",
+            ),
+            (
+                r#"calibration_run(column([0.0, 2.0, 1.0], "kN"), column([0.0, 1.0, 2.0], "mV/V"), "ascending")"#,
+                "strictly increasing loads in an ascending series",
+            ),
+            (
+                r#"calibration_run(column([0.0, 1.0], "kN"), column([0.0, 1.0], "mV/V"), "sideways")"#,
+                "direction must be",
+            ),
+            (
+                r#"gum([#{ name: "a", value: 1.0 * N, u: 0.1 * V }], |x| x[0], #{})"#,
+                "must have the unit of its value",
+            ),
+        ];
+        for (code, want) in cases {
+            match s.eval_cell(code, "bad") {
+                Ok(out) => panic!("expected an error for {code}, got {:?}", out.value),
+                Err(e) => assert!(e.render().contains(want), "{}", e.render()),
+            }
+        }
+    }
+
+    #[test]
+    fn log_to_characterisation_and_verdict() {
+        let mut s = Session::new(SessionOptions::default()).expect("session");
+        let code = r#"
+            import "characterise" as cal;
+            let l = []; let y = [];
+            let steps = [0.0, 2.5, 5.0, 7.5, 10.0, 7.5, 5.0, 2.5, 0.0];
+            for (v, i) in steps {
+                let t = v / 10.0;
+                let down = if i > 4 && v > 0.0 && v < 10.0 { 0.001 } else { 0.0 };
+                for k in 0..30 { l.push(v); y.push(0.2 * v + 0.008 * t * (1.0 - t) + down); }
+                if i < 8 {
+                    let nxt = steps[i + 1];
+                    for k in 1..6 { let w = v + (nxt - v) * k / 6.0; l.push(w); y.push(0.2 * w); }
+                }
+            }
+            let r = cal::characterise(column(l, "kN"), column(y, "mV/V"),
+                #{ capacity: 10.0 * kN, tolerance: 0.01 * kN, min_samples: 20,
+                   class: "C", n_max: 3000, v_min: 0.5 * N });
+            assert_eq(r.run.series, 2);
+            assert_close(r.figures.rated_output, q("2 mV/V"), 1e-9);
+            assert_close(r.figures.nonlinearity, 0.1, 1e-9);
+            assert_close(r.figures.hysteresis, 0.05, 1e-9);
+            assert_close(r.figures.in_load("nonlinearity"), q("10 N"), 1e-9);
+            // The bow is 1.5 v from the R 60 reference line at 5 kN, beyond 0.7 v: fails.
+            assert(!r.verdict.passed);
+            assert(r.verdict.deciding.contains("error at 5000 N"));
+            assert(r.caution.contains("legal-for-trade"));
+            r.figures.markdown()
+        "#;
+        match s.eval_cell(code, "characterise") {
+            Ok(out) => {
+                let text = out
+                    .value
+                    .and_then(|b| b.get("text/plain").map(str::to_string));
+                assert!(text.unwrap_or_default().contains("hysteresis"));
+            }
+            Err(e) => panic!("{}", e.render()),
+        }
+    }
+}

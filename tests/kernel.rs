@@ -446,3 +446,18 @@ fn latency_against_ipykernel() {
     };
     assert!(out.contains("\"ratios\""), "{out}");
 }
+
+#[test]
+fn nbclient_executes_every_notebook() {
+    let dir = Path::new(env!("CARGO_MANIFEST_DIR")).join("notebooks");
+    let out = target_dir().join("notebook-outputs");
+    let (dir, out) = (dir.to_string_lossy(), out.to_string_lossy());
+    let Some(report) = run_py(
+        "notebooks.py",
+        Engine::Session,
+        &["--dir", &dir, "--out", &out],
+    ) else {
+        return;
+    };
+    assert!(report.contains("\"ok\": true"), "{report}");
+}

@@ -301,3 +301,98 @@ fn errors_for_bad_input() {
     assert!(rainflow_cycles(&[f64::INFINITY]).is_err());
     assert!(range_histogram(&[], 0.0).is_err());
 }
+
+mod properties {
+    use super::*;
+    use proptest::prelude::*;
+
+    proptest! {
+        #![proptest_config(ProptestConfig::with_cases(64))]
+
+        #[test]
+        fn rainflow_counts_every_reversal_range_once(x in proptest::collection::vec(-1e3f64..1e3, 0..300)) {
+            // Identity of the three-point method (ASTM E1049-85 (2017) §5.4.4): each range between
+            // adjacent reversals is counted once as half a cycle, two halves making a full one,
+            // so the counts sum to (reversals − 1) / 2.
+            let r = reversals(&x).len();
+            let total: f64 = rainflow_cycles(&x).unwrap().iter().map(|c| c.count).sum();
+            prop_assert_eq!(total, r.saturating_sub(1) as f64 / 2.0);
+        }
+
+        #[test]
+        fn filtering_is_linear(a in proptest::collection::vec(-10f64..10.0, 50..200), k in -5f64..5.0) {
+            // Linearity of an LTI filter from a zero state: H(k·x) = k·H(x).
+            let f = design(true, 4, true, 100.0);
+            let y = f.filter(&a).unwrap();
+            let scaled: Vec<f64> = a.iter().map(|v| k * v).collect();
+            let ys = f.filter(&scaled).unwrap();
+            for (p, q) in ys.iter().zip(&y) {
+                prop_assert!((p - k * q).abs() <= 1e-12 * (1.0 + q.abs() * k.abs()));
+            }
+        }
+
+        #[test]
+        fn zero_phase_keeps_a_constant(c in -1e3f64..1e3, n in 40usize..300) {
+            // Odd extension and settled initial states make a constant pass unchanged.
+            let f = design(false, 3, true, 60.0);
+            let y = f.filter_zero_phase(&vec![c; n]).unwrap();
+            for v in y {
+                prop_assert!((v - c).abs() <= 1e-10 * (1.0 + c.abs()));
+            }
+        }
+    }
+}
+
+/// The script bindings (src/script/signal.rs) give what the Rust functions give.
+#[cfg(feature = "script")]
+mod script {
+    use super::*;
+    use gaugebook::script::{Session, SessionOptions};
+
+    fn run(code: &str) {
+        let mut s = Session::new(SessionOptions::default()).expect("session");
+        if let Err(e) = s.eval_cell(code, "signal test") {
+            panic!("{}", e.render());
+        }
+    }
+
+    #[test]
+    fn script_lowpass_matches_scipy_sosfilt() {
+        // scipy.signal.sosfilt(butter(4, 50, fs=1000, output="sos"), x) sample 7·10, scipy 1.17.1.
+        let x = r::test_signal();
+        let values: Vec<String> = x.iter().map(|v| format!("{v:?}")).collect();
+        run(&format!(
+            "let x = column([{}], \"mV/V\");\n\
+             let y = lowpass(x, #{{ cutoff: 50.0 * Hz, rate: 1000.0 * Hz, order: 4 }});\n\
+             assert_close(y[70].value(\"mV/V\"), {:?}, 1e-10);",
+            values.join(", "),
+            r::SOSFILT[0][10]
+        ));
+    }
+
+    #[test]
+    fn script_rainflow_and_stats() {
+        // ASTM E1049-85 (2017) Fig. 6 history (from memory); numpy.std([1, 2, 3, 4], ddof=1).
+        run(r#"
+            let c = rainflow(column([-2.0, 1.0, -3.0, 5.0, -1.0, 3.0, -4.0, 4.0, -2.0], "MPa"));
+            assert_close(c.cycles, 4.0, 1e-15);
+            let d = miner_damage(c, #{ range: 1.0 * MPa, cycles: 1e6, m: 3.0, endurance_limit: 5.0 * MPa });
+            assert_close(d, (0.5 * 216.0 + 512.0 + 0.5 * 729.0) / 1e6, 1e-12);
+            let s = stats(column([1.0, 2.0, 3.0, 4.0], "N"));
+            assert_close(s.std, q("1.2909944487358056 N"), 1e-14);
+            assert_close(s.rms, q("2.7386127875258306 N"), 1e-14);
+        "#);
+    }
+
+    #[test]
+    fn script_errors_are_catchable() {
+        run(r#"
+            let caught = 0;
+            try { lowpass(column([1.0, 2.0], "V"), #{ cutoff: 600.0 * Hz, rate: 1000.0 * Hz }); } catch (e) { caught += 1; }
+            try { lowpass(column([1.0, 2.0], "V"), #{ cutoff: 60.0 * Hz, rate: 1000.0 * Hz, design: "fast" }); } catch (e) { caught += 1; }
+            try { lowpass(column([1.0, 2.0], "V"), #{ cutof: 60.0 * Hz, rate: 1000.0 * Hz }); } catch (e) { caught += 1; }
+            try { stats(column([1.0], "V")); } catch (e) { caught += 1; }
+            assert_eq(caught, 4);
+        "#);
+    }
+}

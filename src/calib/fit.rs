@@ -433,6 +433,45 @@ impl Fit {
     }
 }
 
+impl Fit {
+    /// The load for an indication and its standard uncertainty, from the curve's coefficient
+    /// covariance and the indication's own standard uncertainty `u_y`, to first order (GUM
+    /// JCGM 100:2008 5.2.2 with correlated coefficients): with g_k = x^k the sensitivities of
+    /// the curve value to its coefficients, u²(x) = (gᵀ V g + u_y²) / (dy/dx)².
+    ///
+    /// For a straight line and `u_y = s/√m` (the mean of m readings) this is the classical
+    /// calibration (inverse prediction) formula u²(x) = s²/b² · (1/m + 1/n + (y − ȳ)²/(b² Sxx))
+    /// (Draper & Smith, *Applied Regression Analysis*, 3rd ed., 1998, §3.2, from memory).
+    ///
+    /// ```
+    /// use gaugebook::{Fit, FitModel};
+    /// let f = Fit::new(&[0.0, 1.0, 2.0, 3.0, 4.0], &[0.1, 0.9, 2.1, 2.9, 4.1], FitModel::Linear)?;
+    /// let (x, u) = f.inverse_with_uncertainty(2.0, 0.0)?;
+    /// assert!((f.eval(x) - 2.0).abs() < 1e-12 && u > 0.0);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn inverse_with_uncertainty(&self, y: f64, u_y: f64) -> Result<(f64, f64), PhysicsError> {
+        if !(u_y.is_finite() && u_y >= 0.0) {
+            return Err(PhysicsError::invalid(
+                "indication uncertainty",
+                u_y,
+                "a finite value of 0 or more",
+            ));
+        }
+        let x = self.inverse(y)?;
+        let d = self.coefficients.len();
+        let g: Vec<f64> = (0..d).map(|k| x.powi(k as i32)).collect();
+        let mut var = u_y * u_y;
+        for i in 0..d {
+            for j in 0..d {
+                var += g[i] * self.covariance[i][j] * g[j];
+            }
+        }
+        let slope = self.slope(x);
+        Ok((x, var.max(0.0).sqrt() / slope.abs()))
+    }
+}
+
 /// Householder QR of the n×p matrix `a` (rows), applied to `b` as well; returns R (p×p).
 fn householder_qr(
     a: &mut [Vec<f64>],

@@ -6,6 +6,9 @@ use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
 
+// Jupyter kernel subcommand (area: kernel).
+mod kernel;
+
 /// Gaugebook: strain-gauge transducer design and test-data reanalysis.
 #[derive(Parser, Debug)]
 #[command(name = "gaugebook", version, about)]
@@ -18,6 +21,11 @@ struct Args {
 enum Command {
     /// Run the main job on an embedded example and print the results.
     Demo,
+    /// Serve the Jupyter kernel, or install / remove its kernelspec.
+    Kernel {
+        #[command(subcommand)]
+        command: kernel::KernelCommand,
+    },
 }
 
 /// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
@@ -26,6 +34,7 @@ pub fn main() -> ExitCode {
     let args = Args::parse();
     let result: anyhow::Result<()> = match args.command {
         Command::Demo => demo(),
+        Command::Kernel { command } => kernel::kernel(command).map(|_| ()),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,

@@ -102,12 +102,25 @@ mod tests {
     #[test]
     fn errors_carry_kind_message_and_caret() {
         let mut s = SessionBackend(Session::new(SessionOptions::default()).unwrap());
-        let e = s.execute("let a = 1;\nthrow \"boom\"", "cell[1]").unwrap_err();
+        let e = s
+            .execute("let a = 1;\nthrow \"boom\"", "cell[1]")
+            .unwrap_err();
         assert_eq!(e.ename, "RuntimeError");
-        assert!(e.traceback[0].starts_with("cell[1]:2:"), "{:?}", e.traceback);
-        assert!(e.traceback.iter().any(|l| l.contains('^')), "{:?}", e.traceback);
+        assert!(
+            e.traceback[0].starts_with("cell[1]:2:"),
+            "{:?}",
+            e.traceback
+        );
+        assert!(
+            e.traceback.iter().any(|l| l.contains('^')),
+            "{:?}",
+            e.traceback
+        );
         assert_eq!(
-            s.execute("a + 1", "cell[2]").unwrap().unwrap().get("text/plain"),
+            s.execute("a + 1", "cell[2]")
+                .unwrap()
+                .unwrap()
+                .get("text/plain"),
             Some("2")
         );
     }

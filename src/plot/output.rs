@@ -92,6 +92,24 @@ impl Plot {
     }
 }
 
+impl std::fmt::Display for Plot {
+    /// The figure's title and panel count, as notebooks show it in plain text.
+    ///
+    /// ```
+    /// let p = gaugebook::Plot::new("creep");
+    /// assert_eq!(p.to_string(), "figure \"creep\" (0 panels)");
+    /// ```
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        let n = self.panel_count();
+        write!(
+            f,
+            "figure {:?} ({n} panel{})",
+            self.title(),
+            if n == 1 { "" } else { "s" }
+        )
+    }
+}
+
 impl ToMime for Plot {
     /// `text/plain` (title and panel count), `image/svg+xml` and `image/png` (base64), so the
     /// kernel shows the figure inline. A figure that cannot be drawn shows only the text, with

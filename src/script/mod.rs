@@ -65,6 +65,8 @@
 // Helpers for the domain binding files; some are used only once those land.
 #[allow(dead_code)]
 mod bind;
+mod calib;
+mod circuits;
 mod column;
 mod complete;
 mod core;
@@ -76,6 +78,7 @@ mod output;
 mod quantity;
 mod resolver;
 mod session;
+mod signal;
 mod spring;
 
 pub use column::Column;

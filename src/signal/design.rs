@@ -19,6 +19,16 @@ pub(crate) struct Zpk {
 }
 
 /// Which side of the cutoff passes.
+///
+/// ```
+/// use gaugebook::{FilterBand, SosFilter};
+/// use gaugebook::units::Frequency;
+/// use uom::si::frequency::hertz;
+/// let hz = Frequency::new::<hertz>;
+/// let hp = SosFilter::butterworth(2, FilterBand::HighPass, hz(10.0), hz(1000.0))?;
+/// assert!(hp.response(hz(0.0), hz(1000.0))?.magnitude < 1e-12); // blocks DC
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
 pub enum FilterBand {
     /// Passes below the cutoff.

@@ -15,6 +15,15 @@ use uom::si::frequency::hertz;
 
 /// The highest order the designs accept. Butterworth is exact at any order; the Bessel
 /// pole iteration is checked to order 20 (tests), which is far beyond the 2–8 used in practice.
+///
+/// ```
+/// use gaugebook::{FilterBand, MAX_FILTER_ORDER, SosFilter};
+/// use gaugebook::units::Frequency;
+/// use uom::si::frequency::hertz;
+/// let hz = Frequency::new::<hertz>;
+/// assert!(SosFilter::bessel(MAX_FILTER_ORDER, FilterBand::LowPass, hz(10.0), hz(1000.0)).is_ok());
+/// assert!(SosFilter::bessel(MAX_FILTER_ORDER + 1, FilterBand::LowPass, hz(10.0), hz(1000.0)).is_err());
+/// ```
 pub const MAX_FILTER_ORDER: usize = 20;
 
 /// Samples per block: 2048 f64 are 16 KiB, half a typical 32 KiB L1 data cache.
