@@ -15,7 +15,8 @@
 //! - nonlinearity and hysteresis are parabolic in the load fraction x = F/Fmax:
 //!   sag −N·RO·4x(1−x) on every reading, and +H·RO·4x(1−x) added on descending readings only;
 //! - temperature acts linearly on zero and span about the reference temperature;
-//! - the reference load channel and the thermometer carry their own small noise.
+//! - the load channel is the invented deadweight machine's nominal force (exact at the holds,
+//!   linear in the ramps); the thermometer carries its own small noise.
 //!
 //! CSV headers state their units (`time [s]`, `load [N]`, `sg_out [mV/V]`, `temp [°C]`,
 //! `strain [µε]`) as the log import reads them. Numbers are written with fixed decimals through
@@ -69,7 +70,8 @@ pub struct ExampleCell {
     pub reference_temp_c: f64,
     /// Standard deviation of the bridge-output noise per sample, mV/V.
     pub noise_mv_v: f64,
-    /// Standard deviation of the reference-load channel's noise, N.
+    /// Standard deviation of the reference-load channel's noise, N (zero: the log records the
+    /// deadweight machine's nominal force).
     pub load_noise_n: f64,
     /// Standard deviation of the thermometer's noise, K.
     pub temp_noise_k: f64,
@@ -93,7 +95,7 @@ pub const EXAMPLE_CELL: ExampleCell = ExampleCell {
     tc_span_pct_per_k: 0.0010,
     reference_temp_c: 23.0,
     noise_mv_v: 0.00004,
-    load_noise_n: 0.005,
+    load_noise_n: 0.0,
     temp_noise_k: 0.02,
 };
 
@@ -273,9 +275,12 @@ const SEED_CREEP: u64 = 0x6761_7567_6562_0002;
 const SEED_TEMPERATURE: u64 = 0x6761_7567_6562_0003;
 const SEED_FATIGUE: u64 = 0x6761_7567_6562_0004;
 
-/// Normal noise of standard deviation `sd` (sd > 0 is a constant of this file, so `new`
-/// cannot fail; a zero sd gives exact values).
+/// Normal noise of standard deviation `sd` (a constant of this file, finite and ≥ 0, so `new`
+/// cannot fail); a zero sd gives exact values and draws nothing from the stream.
 fn noise(rng: &mut Xoshiro256PlusPlus, sd: f64) -> f64 {
+    if sd == 0.0 {
+        return 0.0;
+    }
     match Normal::new(0.0, sd) {
         Ok(n) => n.sample(rng),
         Err(_) => 0.0,
