@@ -110,6 +110,20 @@ pub use plot::{Axis, Panel, Plot, PlotError, base64_encode, histogram_bins};
 #[cfg(feature = "script")]
 pub mod script;
 
+// Test logs (feature `data`): polars import, conversion to strain and load, atomic export.
+#[cfg(feature = "data")]
+mod data;
+#[cfg(feature = "data")]
+pub use data::{
+    AdcScale, Calibration, CalibrationModel, Channel, ChannelMeta, ColumnWriter, DataError,
+    DriftLine, ExportOptions, Gap, HeaderUnit, LeadWires, Log, LogChunk, LogFormat, LogOptions,
+    LogStream, NoProgress, Progress, SkippedRow, TemperatureCompensation, TerminalProgress,
+    TimeAxis, TimeColumn, channel_to_strain, compensate_temperature, correct_lead_wires, find_gaps,
+    median_step, open_log, parse_timestamp, ratio_to_strain, read_log, read_log_with_progress,
+    remove_drift, subtract_zero, window_by_time, write_columns, write_log, write_text_atomic,
+    zero_of,
+};
+
 #[cfg(feature = "cli")]
 pub mod cli;
 
@@ -121,4 +135,14 @@ pub use kernel::{
     Backend, CellError, CodeStatus, CompletionSet, Interrupter, KERNEL_NAME, KernelError,
     KernelOutput, KernelspecTarget, install_kernelspec, install_kernelspec_with, run_kernel,
     run_kernel_with, uninstall_kernelspec,
+};
+
+// Headless notebooks: run, provenance, verify (issue 8, feature `script`).
+#[cfg(feature = "script")]
+mod notebook;
+#[cfg(feature = "script")]
+pub use notebook::{
+    Cell, CellKind, Drift, DriftKind, Notebook, NotebookError, NumberChange, Output, Provenance,
+    RunOptions, VerifyOptions, VerifyReport, file_hash, rhai_version, run_notebook,
+    verify_notebook,
 };

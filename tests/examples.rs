@@ -128,57 +128,40 @@ fn calibration_log_gives_back_its_built_in_figures() {
     );
 }
 
-/// Every notebook's code cells, run in order in one session from the notebook's folder. Without
-/// the `data` feature there is no `read_log`, and the notebooks that import logs are skipped.
+/// Every example notebook in `notebooks/` reruns and matches its recorded outputs
+/// (`gaugebook nb verify` through the library). Set `GAUGEBOOK_RECORD_NOTEBOOKS=1` to record
+/// them first (`gaugebook nb run`). Drafts in `notebooks/pending/` wait for functions that have
+/// not landed and are not run.
 #[cfg(feature = "script")]
 #[test]
-fn every_notebook_runs() {
-    use gaugebook::script::{CaptureSink, Session, SessionOptions};
-    use std::sync::Arc;
-
+fn every_notebook_reruns_and_verifies() {
     let dir = notebooks_dir();
-    let mut found = 0;
-    let mut entries: Vec<PathBuf> = std::fs::read_dir(&dir)
+    let mut paths: Vec<PathBuf> = std::fs::read_dir(&dir)
         .expect("notebooks/ exists")
         .map(|e| e.expect("a directory entry").path())
         .filter(|p| p.extension().is_some_and(|x| x == "ipynb"))
         .collect();
-    entries.sort();
-    for path in entries {
+    paths.sort();
+    let mut found = 0;
+    for path in paths {
         let text = std::fs::read_to_string(&path).unwrap();
         let nb: serde_json::Value = serde_json::from_str(&text).unwrap();
         if nb["metadata"]["kernelspec"]["name"] != "gaugebook" {
             continue; // a Rust (evcxr) notebook is tested elsewhere
         }
         found += 1;
-        if cfg!(not(feature = "data")) && text.contains("read_log(") {
-            continue;
+        if std::env::var_os("GAUGEBOOK_RECORD_NOTEBOOKS").is_some() {
+            gaugebook::run_notebook(&path, &gaugebook::RunOptions::default())
+                .unwrap_or_else(|e| panic!("{}: {e}", path.display()));
         }
-        let mut s = Session::new(SessionOptions {
-            stdlib_dir: Some(Path::new(env!("CARGO_MANIFEST_DIR")).join("stdlib")),
-            script_dir: Some(dir.clone()),
-        })
-        .unwrap();
-        s.set_output(Arc::new(CaptureSink::default()));
-        let cells = nb["cells"].as_array().expect("cells");
-        for (k, cell) in cells.iter().enumerate() {
-            if cell["cell_type"] != "code" {
-                continue;
-            }
-            let src = match &cell["source"] {
-                serde_json::Value::Array(parts) => {
-                    parts.iter().filter_map(|p| p.as_str()).collect::<String>()
-                }
-                v => v.as_str().unwrap_or_default().to_string(),
-            };
-            let name = format!("{}[{k}]", path.display());
-            if let Err(e) = s.eval_cell(&src, &name) {
-                panic!("{name} failed:\n{e}");
-            }
-        }
+        let report = gaugebook::verify_notebook(&path, &gaugebook::VerifyOptions::default())
+            .unwrap_or_else(|e| panic!("{}: {e}", path.display()));
+        assert!(
+            report.outputs > 0,
+            "{} has no recorded outputs",
+            path.display()
+        );
+        assert!(report.passed(), "{report}");
     }
-    assert!(
-        found >= 4,
-        "expected the four example notebooks, found {found}"
-    );
+    assert!(found >= 2, "expected the example notebooks, found {found}");
 }

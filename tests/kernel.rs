@@ -461,3 +461,47 @@ fn nbclient_executes_every_notebook() {
     };
     assert!(report.contains("\"ok\": true"), "{report}");
 }
+
+/// JupyterLab from PyPI on loopback, driven by headless Chromium (Debian packages `chromium` and
+/// `chromium-driver`); the screenshot lands in `target/kernel-browser/jupyterlab.png`. Skips
+/// loudly when Chromium is not installed (a system package the tests cannot provision).
+#[test]
+fn jupyterlab_in_headless_chromium_runs_a_cell() {
+    let chromium = ["/usr/bin/chromium", "/usr/bin/chromium-browser"]
+        .into_iter()
+        .find(|p| Path::new(p).exists());
+    let driver = "/usr/bin/chromedriver";
+    let (Some(chromium), true) = (chromium, Path::new(driver).exists()) else {
+        eprintln!(
+            "\n\n!!!!!!!! SKIPPED: the JupyterLab browser test needs the Debian packages chromium \
+             and chromium-driver !!!!!!!!\n\n"
+        );
+        return;
+    };
+    let Some(python) = pyenv() else {
+        return;
+    };
+    let ready = target_dir().join("pyenv").join(".gaugebook-lab-ready");
+    if !ready.exists() {
+        let st = Command::new(&python)
+            .args([
+                "-m",
+                "pip",
+                "install",
+                "--quiet",
+                "--disable-pip-version-check",
+            ])
+            .args(["jupyterlab", "selenium"])
+            .status()
+            .expect("pip runs");
+        assert!(st.success(), "pip install jupyterlab selenium failed");
+        std::fs::write(&ready, "jupyterlab\nselenium\n").expect("marker file is writable");
+    }
+    let out = target_dir().join("kernel-browser");
+    let out = out.to_string_lossy();
+    let args = ["--out", &out, "--chromium", chromium, "--driver", driver];
+    let Some(report) = run_py("browser.py", Engine::Session, &args) else {
+        return;
+    };
+    assert!(report.contains("\"ok\": true"), "{report}");
+}

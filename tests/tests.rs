@@ -4,11 +4,16 @@ mod bridge;
 mod calib;
 mod chain;
 mod common;
+mod data;
+#[cfg(feature = "cli")]
+mod demo;
 mod examples;
 mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
 mod layout;
+#[cfg(feature = "script")]
+mod notebook;
 #[cfg(feature = "plot")]
 mod plot;
 mod rosette;

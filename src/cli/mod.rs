@@ -26,6 +26,11 @@ enum Command {
         #[command(subcommand)]
         command: kernel::KernelCommand,
     },
+    /// Headless notebooks: run one and write its outputs, or verify its recorded outputs.
+    Nb {
+        #[command(subcommand)]
+        command: NbCommand,
+    },
 }
 
 /// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
@@ -35,6 +40,7 @@ pub fn main() -> ExitCode {
     let result: anyhow::Result<()> = match args.command {
         Command::Demo => demo(),
         Command::Kernel { command } => kernel::kernel(command).map(|_| ()),
+        Command::Nb { command } => nb(command),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,
@@ -54,4 +60,75 @@ fn demo() -> anyhow::Result<()> {
 
 fn gaugebook_demo() -> anyhow::Result<crate::DesignReport> {
     Ok(crate::bridge_design_demo()?)
+}
+
+// ---- Headless notebooks (issue 8): `nb run`, `nb verify` ----
+
+#[derive(Subcommand, Debug)]
+enum NbCommand {
+    /// Run every code cell in order and write the outputs into the notebook (or --out).
+    Run {
+        /// The notebook (.ipynb, nbformat 4).
+        notebook: std::path::PathBuf,
+        /// Write the executed notebook here instead of updating NOTEBOOK in place.
+        #[arg(long, value_name = "FILE")]
+        out: Option<std::path::PathBuf>,
+        /// Record errors as outputs and run every cell instead of stopping at the first.
+        #[arg(long)]
+        allow_errors: bool,
+    },
+    /// Rerun a notebook and compare every recorded output; exits non-zero on drift.
+    Verify {
+        /// The notebook (.ipynb) with recorded outputs.
+        notebook: std::path::PathBuf,
+        /// Relative tolerance for numbers (cell and notebook metadata `gaugebook.rtol` win).
+        #[arg(long, value_name = "R", default_value_t = crate::VerifyOptions::default().rtol)]
+        rtol: f64,
+        /// Absolute tolerance for numbers (cell and notebook metadata `gaugebook.atol` win).
+        #[arg(long, value_name = "A", default_value_t = crate::VerifyOptions::default().atol)]
+        atol: f64,
+    },
+}
+
+fn nb(command: NbCommand) -> anyhow::Result<()> {
+    use anyhow::Context;
+    match command {
+        NbCommand::Run {
+            notebook,
+            out,
+            allow_errors,
+        } => {
+            let target = out.clone().unwrap_or_else(|| notebook.clone());
+            let options = crate::RunOptions {
+                out,
+                allow_errors,
+                ..Default::default()
+            };
+            let nb = crate::run_notebook(&notebook, &options)
+                .with_context(|| format!("running {}", notebook.display()))?;
+            let errors = nb
+                .cells
+                .iter()
+                .flat_map(|c| &c.outputs)
+                .filter(|o| matches!(o, crate::Output::Error { .. }))
+                .count();
+            println!(
+                "wrote {} ({} cell(s), {errors} error output(s))",
+                target.display(),
+                nb.cells.len()
+            );
+            Ok(())
+        }
+        NbCommand::Verify {
+            notebook,
+            rtol,
+            atol,
+        } => {
+            let report = crate::verify_notebook(&notebook, &crate::VerifyOptions { rtol, atol })
+                .with_context(|| format!("verifying {}", notebook.display()))?;
+            print!("{report}");
+            anyhow::ensure!(report.passed(), "{} drifted", notebook.display());
+            Ok(())
+        }
+    }
 }
