@@ -3,6 +3,8 @@
 mod bridge;
 mod calib;
 mod chain;
+#[cfg(feature = "cli")]
+mod cli;
 mod common;
 mod data;
 #[cfg(feature = "cli")]

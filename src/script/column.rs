@@ -14,7 +14,7 @@ use std::sync::Arc;
 
 use rhai::{Array, Dynamic, Engine, EvalAltResult, INT};
 
-use super::bind::{ScriptResult, fault, func, number, type_of};
+use super::bind::{Record, ScriptResult, fault, func, number, type_of};
 use crate::units::{Quantity, Unit, UnitError};
 use crate::{Dimension, Kind, MimeBundle, ToMime, html_escape};
 
@@ -198,20 +198,7 @@ impl Column {
 
 /// Up to 6 significant figures, trailing zeros dropped (the way a person writes a reading).
 fn short(v: f64) -> String {
-    if v == 0.0 || !v.is_finite() {
-        return format!("{v}");
-    }
-    let mag = v.abs().log10().floor() as i32;
-    if !(-5..=9).contains(&mag) {
-        return format!("{v:.5e}");
-    }
-    let digits = (5 - mag).clamp(0, 17) as usize;
-    let s = format!("{v:.digits$}");
-    if s.contains('.') {
-        s.trim_end_matches('0').trim_end_matches('.').to_string()
-    } else {
-        s
-    }
+    super::core::format_number(v, 6)
 }
 
 /// `[1, 2, 3] mV (3 samples)`; long columns show their first and last values.
@@ -814,6 +801,30 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |c: &mut Column| extreme(c, "max", f64::max));
+
+    func(
+        "stats",
+        &["column: Column"],
+        "Record",
+        r#"
+        Count, mean, sample standard deviation, min, max and rms in one record.
+        ```rhai
+        let s = column([1.0, 2.0, 3.0, 4.0], "mV").stats();
+        assert_eq(s.n, 4);
+        assert_close(s.mean, q("2.5 mV"), 1e-12);
+        assert_close(s.max, q("4 mV"), 1e-12);
+        ```
+    "#,
+    )
+    .register_into_engine(engine, |c: &mut Column| -> ScriptResult<Record> {
+        Ok(Record::new("column statistics")
+            .field("n", c.len() as INT)
+            .field("mean", Dynamic::from(mean(c)?))
+            .field("std", Dynamic::from(std(c)?))
+            .field("min", Dynamic::from(extreme(c, "min", f64::min)?))
+            .field("max", Dynamic::from(extreme(c, "max", f64::max)?))
+            .field("rms", Dynamic::from(rms(c)?)))
+    });
 
     func(
         "abs",
