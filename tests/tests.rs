@@ -9,6 +9,7 @@ mod common;
 mod data;
 #[cfg(feature = "cli")]
 mod demo;
+mod examples;
 mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;
