@@ -94,6 +94,11 @@ pub use stress::{Elastic, PlaneStress, PrincipalStresses};
 // The embedded worked example behind `gaugebook demo`.
 mod demo;
 pub use demo::{DesignReport, ReportSection, bridge_design_demo};
+// Example-notebook test logs (area: examples).
+pub use demo::{
+    EXAMPLE_CELL, EXAMPLE_SPECTRUM, ExampleCell, ExampleLog, ExampleSpectrum, calibration_log,
+    creep_log, example_logs, fatigue_log, temperature_log, write_example_logs,
+};
 
 // Figures (issue 6, feature `plot`).
 #[cfg(feature = "plot")]

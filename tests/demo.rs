@@ -9,7 +9,11 @@ fn demo_command_prints_the_worked_design_with_units() {
         .output()
         .expect("the gaugebook binary runs");
     let stdout = String::from_utf8_lossy(&out.stdout);
-    assert!(out.status.success(), "demo failed: {}", String::from_utf8_lossy(&out.stderr));
+    assert!(
+        out.status.success(),
+        "demo failed: {}",
+        String::from_utf8_lossy(&out.stderr)
+    );
     // The rated output of the full bending bridge: GF·ε with ε = 6·F·(L − x)/(E·b·h²)
     // (Timoshenko & Gere, Mechanics of Materials, 4th ed., §5.5, from memory) for the embedded
     // beam: 2.05 × 1025.99 µε = 2.10328 mV/V (closed-form identity of the full bending bridge).

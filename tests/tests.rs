@@ -3,10 +3,13 @@
 mod bridge;
 mod calib;
 mod chain;
+#[cfg(feature = "cli")]
+mod cli;
 mod common;
 mod data;
 #[cfg(feature = "cli")]
 mod demo;
+mod examples;
 mod gauge;
 #[cfg(feature = "kernel")]
 mod kernel;

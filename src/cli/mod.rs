@@ -1,13 +1,18 @@
 //! The command line: argument parsing and `anyhow` reporting over the library's front-ends.
 //!
-//! Only this layer uses `anyhow`; everything below returns typed errors.
+//! Only this layer uses `anyhow`; everything below returns typed errors. Each subcommand is one
+//! variant of [`Command`] and one file here; `main` only dispatches.
 
+use std::path::PathBuf;
 use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
 
+mod doc;
 // Jupyter kernel subcommand (area: kernel).
 mod kernel;
+mod repl;
+mod run;
 
 /// Gaugebook: strain-gauge transducer design and test-data reanalysis.
 #[derive(Parser, Debug)]
@@ -21,6 +26,28 @@ struct Args {
 enum Command {
     /// Run the main job on an embedded example and print the results.
     Demo,
+    /// Run a Rhai script headless; `-` reads it from standard input.
+    Run {
+        /// The script file, or `-` for standard input.
+        file: String,
+        /// Define a constant before the script runs: `--set load="2 kN"`, `--set n=10`.
+        #[arg(long = "set", value_name = "NAME=VALUE")]
+        set: Vec<String>,
+        /// The stdlib folder (default: $GAUGEBOOK_STDLIB, beside the binary, or the built-in one).
+        #[arg(long, value_name = "DIR")]
+        stdlib: Option<PathBuf>,
+    },
+    /// An interactive prompt with history, for quick calculations.
+    Repl {
+        /// The stdlib folder.
+        #[arg(long, value_name = "DIR")]
+        stdlib: Option<PathBuf>,
+    },
+    /// Print the script reference (markdown): one function, or everything.
+    Doc {
+        /// A function name; omit for the whole reference.
+        name: Option<String>,
+    },
     /// Serve the Jupyter kernel, or install / remove its kernelspec.
     Kernel {
         #[command(subcommand)]
@@ -34,16 +61,20 @@ enum Command {
 }
 
 /// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
-/// of causes on standard error.
+/// of causes on standard error. A script error exits with 1 after printing
+/// `FILE:LINE:COL: message`, the source line and a caret.
 pub fn main() -> ExitCode {
     let args = Args::parse();
-    let result: anyhow::Result<()> = match args.command {
-        Command::Demo => demo(),
-        Command::Kernel { command } => kernel::kernel(command).map(|_| ()),
-        Command::Nb { command } => nb(command),
+    let result: anyhow::Result<ExitCode> = match args.command {
+        Command::Demo => demo().map(|()| ExitCode::SUCCESS),
+        Command::Run { file, set, stdlib } => run::run(&file, &set, stdlib),
+        Command::Repl { stdlib } => repl::repl(stdlib),
+        Command::Doc { name } => doc::doc(name.as_deref()),
+        Command::Kernel { command } => kernel::kernel(command),
+        Command::Nb { command } => nb(command).map(|()| ExitCode::SUCCESS),
     };
     match result {
-        Ok(()) => ExitCode::SUCCESS,
+        Ok(code) => code,
         Err(e) => {
             eprintln!("error: {e:#}");
             ExitCode::FAILURE

@@ -6,6 +6,13 @@
 //! strain to bridge output, nonlinearity, gauge self-heating, cable effects, a shunt-calibration
 //! resistor, the signal chain's resolution and the stress margins.
 
+// Deterministic test logs for the example notebooks (area: examples).
+mod logs;
+pub use logs::{
+    EXAMPLE_CELL, EXAMPLE_SPECTRUM, ExampleCell, ExampleLog, ExampleSpectrum, calibration_log,
+    creep_log, example_logs, fatigue_log, temperature_log, write_example_logs,
+};
+
 use std::fmt;
 
 use uom::si::area::square_millimeter;

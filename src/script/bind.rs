@@ -143,6 +143,27 @@ pub(crate) fn values(x: &Dynamic, what: &str, unit: &str) -> ScriptResult<Values
     ))
 }
 
+/// Reads a single-quantity argument as a uom type (`Force`, `ElectricalResistance`, `Strain` …)
+/// through the units layer's `TryFrom<&Quantity>`, naming the argument when it does not fit.
+pub(crate) fn uom_arg<T>(x: &Dynamic, what: &str) -> ScriptResult<T>
+where
+    for<'q> T: TryFrom<&'q Quantity, Error = crate::UnitError>,
+{
+    match x.read_lock::<Quantity>() {
+        Some(q) => T::try_from(&q).map_err(|e| fault("UnitError", format!("{what}: {e}"))),
+        None => Err(fault(
+            "ArgumentError",
+            format!("{what} must be a quantity, found {}", type_of(x)),
+        )),
+    }
+}
+
+/// A uom value (or `Strain`, `OutputRatio`) as a script quantity displayed in `unit`.
+pub(crate) fn from_uom<T: Into<Quantity>>(v: T, unit: &str) -> Dynamic {
+    let q: Quantity = v.into();
+    Dynamic::from(q.to(unit).unwrap_or(q))
+}
+
 /// A float from an `f64` or `i64` script value.
 pub(crate) fn number(x: &Dynamic) -> Option<f64> {
     x.as_float()
@@ -555,6 +576,91 @@ pub(crate) fn bundle_map(b: &MimeBundle) -> Map {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    /// A complete binding in the convention's shape (test-only; the physics is a voltage
+    /// divider, `v_out = v · r2 / (r1 + r2)`, a closed-form identity): options map, quantity or
+    /// column inputs, a shaped result inside a `Record`.
+    fn register_divider(engine: &mut Engine) {
+        func(
+            "divider",
+            &["options: Map"],
+            "Record",
+            r#"
+            Output of a resistive divider.
+            ```rhai
+            let d = divider(#{ v: 10.0 * V, r1: 1.0 * kohm, r2: 3.0 * kohm });
+            assert_close(d.v_out, q("7.5 V"), 1e-12);
+            ```
+        "#,
+        )
+        .register_into_engine(engine, |m: Map| -> ScriptResult<Record> {
+            let o = Options::new(&m, "divider()", &["v", "r1", "r2"])?;
+            let v = o.values("v", "V")?;
+            let r1 = o.values("r1", "ohm")?;
+            let r2 = o.values("r2", "ohm")?;
+            let out = lift(&[&v, &r1, &r2], "divider()", |x| {
+                crate::check_positive("r1 + r2", x[1] + x[2], "Ω")?;
+                Ok::<f64, crate::PhysicsError>(x[0] * x[2] / (x[1] + x[2]))
+            })?;
+            Ok(Record::new("divider")
+                .field("v_out", shaped(out, "V")?)
+                .field("ratio", 0.75))
+        });
+    }
+
+    fn engine() -> Engine {
+        let mut e = super::super::build_engine(&Default::default());
+        register_divider(&mut e);
+        e
+    }
+
+    #[test]
+    fn example_binding_scalar_and_column() {
+        let e = engine();
+        let v: f64 = e
+            .eval(r#"divider(#{ v: 10.0 * V, r1: 1.0 * kohm, r2: 3.0 * kohm }).v_out.value("V")"#)
+            .unwrap();
+        assert!((v - 7.5).abs() < 1e-12);
+        let n: rhai::INT = e
+            .eval(r#"let c = divider(#{ v: 10.0 * V, r1: column([1.0, 3.0], "kohm"), r2: 3.0 * kohm }); c["v_out"].len"#)
+            .unwrap();
+        assert_eq!(n, 2);
+        let t: String = e
+            .eval(r#"to_string(divider(#{ v: 1.0 * V, r1: 1.0 * ohm, r2: 1.0 * ohm }))"#)
+            .unwrap();
+        assert_eq!(t, "divider\n  v_out  0.5 V\n  ratio  0.75");
+    }
+
+    #[test]
+    fn example_binding_errors_name_the_key() {
+        let e = engine();
+        let msg = |code: &str| match *e.eval::<rhai::Dynamic>(code).unwrap_err() {
+            EvalAltResult::ErrorRuntime(v, _) => v
+                .read_lock::<super::super::error::Fault>()
+                .map(|f| f.message.clone())
+                .unwrap_or_default(),
+            other => other.to_string(),
+        };
+        assert!(
+            msg(r#"divider(#{ v: 1.0 * V, r1: 1.0 * ohm })"#)
+                .contains("missing key `r2` in options of divider()")
+        );
+        assert!(
+            msg(r#"divider(#{ v: 1.0 * V, r1: 1.0 * ohm, r2: 5.0 * V })"#)
+                .contains("key `r2` in options of divider() must be convertible to Ω, found 5 V")
+        );
+        assert!(
+            msg(r#"divider(#{ v: 1.0 * V, r1: 1.0 * ohm, r2: 1.0 * ohm, r3: 1 })"#)
+                .contains("unknown key `r3`")
+        );
+        assert!(
+            msg(r#"divider(#{ v: 1.0 * V, r1: 1.0 * ohm, r2: "x" })"#).contains("found a string")
+        );
+        assert!(
+            msg(r#"divider(#{ v: 1.0 * V, r1: column([-1.0, -2.0], "ohm"), r2: 1.0 * ohm })"#)
+                .contains("at sample 0: invalid r1 + r2")
+        );
+    }
 
     #[test]
     fn doc_comment_strips_indent_and_prefixes() {

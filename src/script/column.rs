@@ -198,20 +198,7 @@ impl Column {
 
 /// Up to 6 significant figures, trailing zeros dropped (the way a person writes a reading).
 fn short(v: f64) -> String {
-    if v == 0.0 || !v.is_finite() {
-        return format!("{v}");
-    }
-    let mag = v.abs().log10().floor() as i32;
-    if !(-5..=9).contains(&mag) {
-        return format!("{v:.5e}");
-    }
-    let digits = (5 - mag).clamp(0, 17) as usize;
-    let s = format!("{v:.digits$}");
-    if s.contains('.') {
-        s.trim_end_matches('0').trim_end_matches('.').to_string()
-    } else {
-        s
-    }
+    super::core::format_number(v, 6)
 }
 
 /// `[1, 2, 3] mV (3 samples)`; long columns show their first and last values.

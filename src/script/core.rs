@@ -103,8 +103,56 @@ fn assert_close_dyn(
     }
 }
 
+/// `v` to `digits` significant figures, trailing zeros dropped; scientific notation outside
+/// 1e-4 ..= 1e9, the way a person writes a reading.
+pub(crate) fn format_number(v: f64, digits: usize) -> String {
+    let digits = digits.clamp(1, 17);
+    if v == 0.0 || !v.is_finite() {
+        return format!("{v}");
+    }
+    let mag = v.abs().log10().floor() as i32;
+    if !(-4..=9).contains(&mag) {
+        let s = format!("{v:.*e}", digits - 1);
+        return match s.split_once('e') {
+            Some((m, e)) if m.contains('.') => {
+                format!("{}e{e}", m.trim_end_matches('0').trim_end_matches('.'))
+            }
+            _ => s,
+        };
+    }
+    let decimals = (digits as i32 - 1 - mag).max(0) as usize;
+    let s = format!("{v:.decimals$}");
+    if s.contains('.') {
+        s.trim_end_matches('0').trim_end_matches('.').to_string()
+    } else {
+        s
+    }
+}
+
 /// Registers the checks and the output functions; output goes to `sink`.
 pub(crate) fn register(engine: &mut Engine, sink: SinkSlot) {
+    func(
+        "format_number",
+        &["x: f64", "digits: i64"],
+        "String",
+        r#"
+        `x` to `digits` significant figures, without trailing zeros; scientific notation below
+        1e-4 and above 1e9.
+        ```rhai
+        assert_eq(format_number(0.49951234, 4), "0.4995");
+        assert_eq(format_number(174650.0, 6), "174650");
+        assert_eq(format_number(1.0 / 3.0, 3), "0.333");
+        assert_eq(format_number(2.5e-7, 3), "2.5e-7");
+        ```
+    "#,
+    )
+    .register_into_engine(engine, |x: f64, d: rhai::INT| {
+        format_number(x, d.max(1) as usize)
+    });
+    engine.register_fn("format_number", |x: rhai::INT, d: rhai::INT| {
+        format_number(x as f64, d.max(1) as usize)
+    });
+
     func(
         "assert",
         &["condition: bool"],

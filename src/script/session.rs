@@ -182,7 +182,7 @@ impl Session {
             Err(payload) => return Err(panic_error(payload, origin)),
             Ok(Err(e)) => match *e {
                 EvalAltResult::Exit(v, _) => v,
-                e => return Err(self.sources.resolve(&e, origin)),
+                e => return Err(self.explain(self.sources.resolve(&e, origin))),
             },
             Ok(Ok(v)) => v,
         };
@@ -198,6 +198,44 @@ impl Session {
         Ok(CellOutput {
             value: self.bundle(value, origin)?,
         })
+    }
+
+    /// A call that matches no overload gets the overloads that exist: a wrong argument type
+    /// is then a `TypeError` that says what the function takes.
+    fn explain(&self, mut e: ScriptError) -> ScriptError {
+        if e.kind != "FunctionNotFound" {
+            return e;
+        }
+        let Some(sig) = e
+            .message
+            .strip_prefix("no function `")
+            .and_then(|m| m.strip_suffix('`'))
+        else {
+            return e;
+        };
+        let (name, args) = sig
+            .split_once(" (")
+            .map_or((sig, ""), |(n, a)| (n, a.trim_end_matches(')')));
+        let name = name.rsplit("::").next().unwrap_or(name).trim().to_string();
+        let mut takes: Vec<String> = super::doc::reference_docs(&self.engine)
+            .into_iter()
+            .filter(|d| d.name == name)
+            .map(|d| d.signature)
+            .collect();
+        takes.extend(
+            self.lib
+                .iter_functions()
+                .filter(|f| f.name == name)
+                .map(|f| format!("{}({})", f.name, f.params.join(", "))),
+        );
+        if !takes.is_empty() {
+            e.kind = "TypeError".to_string();
+            e.message = format!(
+                "`{name}` cannot take ({args}); it takes {}",
+                takes.join(" or ")
+            );
+        }
+        e
     }
 
     /// Makes the cell's top-level imports visible to later cells (as static modules).
@@ -306,4 +344,29 @@ fn panic_error(payload: Box<dyn std::any::Any + Send>, origin: &str) -> ScriptEr
         format!("internal error in a native function (please report it): {what}"),
         origin,
     )
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn a_panic_in_a_native_function_is_an_error_and_the_session_lives() {
+        let mut s = Session::new(SessionOptions::default()).unwrap();
+        s.engine
+            .register_fn("boom", || -> rhai::INT { panic!("boom at the bridge") });
+        let e = s.eval_cell("let a = 41; boom()", "c").unwrap_err();
+        assert_eq!(e.kind, "Panic");
+        assert!(e.message.contains("boom at the bridge"), "{}", e.message);
+        let out = s.eval_cell("a + 1", "c").unwrap();
+        assert_eq!(out.value.unwrap().get("text/plain"), Some("42"));
+    }
+
+    #[test]
+    fn session_can_move_to_another_thread() {
+        fn is_send<T: Send>() {}
+        is_send::<Session>();
+        fn is_send_sync<T: Send + Sync>() {}
+        is_send_sync::<InterruptHandle>();
+    }
 }
