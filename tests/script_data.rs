@@ -133,7 +133,8 @@ fn the_frame_prints_names_units_and_ranges_and_shows_as_a_table() {
 #[test]
 fn strain_from_a_logged_quarter_bridge_matches_the_closed_form() {
     // Quarter bridge, one active arm, equal arms: Vo/V = GF·ε / (4 + 2·GF·ε)
-    // (K. Hoffmann, An Introduction to Measurements using Strain Gages, 1989, §7 (from memory));
+    // (the Wheatstone-bridge law with R1 = R(1 + GF·ε) and three equal arms, a closed-form
+    // identity; Dally & Riley, Experimental Stress Analysis, 4th ed., ch. 8, from memory);
     // to_strain must invert it exactly.
     let gf = 2.1;
     let strains = [-2000e-6, -10e-6, 0.0, 500e-6, 3000e-6];
