@@ -130,8 +130,7 @@ fn calibration_log_gives_back_its_built_in_figures() {
 
 /// Every example notebook in `notebooks/` reruns and matches its recorded outputs
 /// (`gaugebook nb verify` through the library). Set `GAUGEBOOK_RECORD_NOTEBOOKS=1` to record
-/// them first (`gaugebook nb run`). Drafts in `notebooks/pending/` wait for functions that have
-/// not landed and are not run.
+/// them first (`gaugebook nb run`).
 #[cfg(feature = "script")]
 #[test]
 fn every_notebook_reruns_and_verifies() {

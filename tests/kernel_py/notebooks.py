@@ -22,7 +22,11 @@ BUILT = [
 
 
 def run(nb, path_for_errors):
-    client = NotebookClient(nb, kernel_name="gaugebook", timeout=120, allow_errors=False)
+    # Like Jupyter itself, start the kernel in the notebook's folder, so relative data paths
+    # resolve the same way in JupyterLab, under nbclient and in `gaugebook nb run`.
+    folder = os.path.dirname(os.path.abspath(path_for_errors)) if os.path.exists(path_for_errors) else os.getcwd()
+    client = NotebookClient(nb, kernel_name="gaugebook", timeout=120, allow_errors=False,
+                            resources={"metadata": {"path": folder}})
     client.execute()
     return nb
 
