@@ -24,7 +24,9 @@ from selenium.webdriver.common.action_chains import ActionChains
 from selenium.webdriver.common.keys import Keys
 
 CELLS = [
-    'let r = q("350 ohm");\nprint(`bridge arm: ${r}`);\ndisplay(q("2 mV/V"));\nr.to("kohm")',
+    'let r = q("350 ohm");\nprint(`bridge arm: ${r}`);\ndisplay(q("2 mV/V"));\n'
+    'display(plot(column([0.0, 1.0, 2.0, 3.0], "s"), column([0.0, 1.0, 4.0, 9.0], "N"),\n'
+    '    #{ title: "inline figure" }));\nr.to("kohm")',
 ]
 
 
@@ -89,14 +91,20 @@ def main():
         while time.monotonic() < deadline:
             outs = driver.find_elements(By.CSS_SELECTOR, ".jp-OutputArea-output")
             text = "\n".join(o.text for o in outs)
-            if "0.35 kΩ" in text and "mV/V" in text:
+            # JupyterLab renders image/svg+xml as an <img> (or inline <svg>) in the output area.
+            figures = driver.find_elements(
+                By.CSS_SELECTOR, ".jp-OutputArea-output img, .jp-OutputArea-output svg")
+            if "0.35 kΩ" in text and "mV/V" in text and figures:
                 break
             time.sleep(0.5)
         time.sleep(0.5)
         shot = os.path.join(args.out, "jupyterlab.png")
         driver.save_screenshot(shot)
-        report = {"screenshot": shot, "outputs": text,
-                  "ok": "0.35 kΩ" in text and "mV/V" in text and "bridge arm" in text}
+        figures = driver.find_elements(
+            By.CSS_SELECTOR, ".jp-OutputArea-output img, .jp-OutputArea-output svg")
+        report = {"screenshot": shot, "outputs": text, "figures": len(figures),
+                  "ok": "0.35 kΩ" in text and "mV/V" in text and "bridge arm" in text
+                  and len(figures) > 0}
     finally:
         if driver is not None:
             if not report.get("ok"):
