@@ -63,6 +63,12 @@ enum Command {
 /// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
 /// of causes on standard error. A script error exits with 1 after printing
 /// `FILE:LINE:COL: message`, the source line and a caret.
+/// ```no_run
+/// // src/main.rs is exactly this:
+/// fn main() -> std::process::ExitCode {
+///     gaugebook::cli::main()
+/// }
+/// ```
 pub fn main() -> ExitCode {
     let args = Args::parse();
     let result: anyhow::Result<ExitCode> = match args.command {

@@ -78,6 +78,14 @@ pub struct CompletionSet {
 }
 
 /// Stops the running cell; callable from any thread.
+/// ```
+/// use std::sync::{Arc, atomic::{AtomicBool, Ordering}};
+/// let flag = Arc::new(AtomicBool::new(false));
+/// let f = flag.clone();
+/// let stop: gaugebook::Interrupter = Arc::new(move || f.store(true, Ordering::SeqCst));
+/// std::thread::spawn(move || stop()).join().unwrap();
+/// assert!(flag.load(Ordering::SeqCst));
+/// ```
 pub type Interrupter = Arc<dyn Fn() + Send + Sync>;
 
 /// A language engine the kernel can serve. It lives on the kernel's execution thread, so it need
