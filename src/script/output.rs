@@ -42,6 +42,13 @@ pub trait OutputSink: Send + Sync {
     fn display(&self, bundle: MimeBundle, display_id: Option<String>, update: bool);
     /// `clear_output(wait)`: clear the cell's output (when `wait`, just before the next output).
     fn clear_output(&self, wait: bool);
+    /// `input(prompt)`: one line from the person running the script (without its line end),
+    /// or why there is none. `password` asks the front-end not to echo it. The default has no
+    /// one to ask, so scripts run headless get a clear error instead of waiting forever.
+    fn input(&self, prompt: &str, password: bool) -> Result<String, String> {
+        let _ = (prompt, password);
+        Err("this front-end has no one to ask for input".to_string())
+    }
 }
 
 /// Writes to the process's standard output and error; `display` prints `text/plain`.
@@ -70,6 +77,15 @@ impl OutputSink for StdSink {
         self.stdout(&text);
     }
     fn clear_output(&self, _wait: bool) {}
+    fn input(&self, prompt: &str, _password: bool) -> Result<String, String> {
+        self.stdout(prompt);
+        let mut line = String::new();
+        match std::io::stdin().read_line(&mut line) {
+            Ok(0) => Err("standard input is at its end".to_string()),
+            Ok(_) => Ok(line.trim_end_matches(['\n', '\r']).to_string()),
+            Err(e) => Err(format!("cannot read standard input: {e}")),
+        }
+    }
 }
 
 /// One event recorded by a [`CaptureSink`].
