@@ -1502,12 +1502,9 @@ fn register_chain(engine: &mut Engine) {
         }
         if o.has("rated_output") || o.has("capacity") {
             let ro = OutputRatio::new(o.quantity("rated_output", "mV/V")?.si());
-            let capacity = o.quantity("capacity", "N")?;
-            // The load step reads best in the unit the capacity was given in.
-            let shown = capacity.unit().map_or("N", |u| u.symbol()).to_string();
-            let cap = Force::new::<newton>(capacity.si());
+            let cap = Force::new::<newton>(o.quantity("capacity", "N")?.si());
             r = r
-                .field("load_resolution", q_in(chain.load_resolution(ro, cap)?, &shown)?)
+                .field("load_resolution", q(chain.load_resolution(ro, cap)?))
                 .field("noise_free_counts", chain.noise_free_counts(ro)?);
         }
         Ok(r)
