@@ -124,7 +124,11 @@ impl Plot {
             bottom = bottom.points(&format!("{} residual", direction_name(dir)), &x, &r)?;
         }
         top = top
-            .line(&format!("fit ({})", model_name(fit.model())), &curve_x, &curve_y)?
+            .line(
+                &format!("fit ({})", model_name(fit.model())),
+                &curve_x,
+                &curve_y,
+            )?
             .with_height(2.0);
         Ok(Plot::new("calibration curve and residuals")
             .with_panel(top)
@@ -153,9 +157,8 @@ impl Plot {
         if verdict.points.is_empty() || verdict.envelope.is_empty() {
             return Err(PlotError::Invalid {
                 name: "verdict for a class error figure".to_string(),
-                found: format!("a {} verdict without per-point errors", verdict.standard),
-                expected: "a verdict with per-point errors and an envelope (OIML R 60)"
-                    .to_string(),
+                found: format!("{} verdict without per-point errors", verdict.standard),
+                expected: "a verdict with per-point errors and an envelope (OIML R 60)".to_string(),
             });
         }
         let top = verdict
@@ -255,8 +258,8 @@ impl Plot {
         let slope = (y1 - y0) / (l1 - l0);
         let (lf, x_axis) = load_axis(run);
         let (yf, yu) = indication_unit(run);
-        let mut panel = Panel::new(x_axis, Axis::new("deviation from terminal line", yu))
-            .with_zero_line();
+        let mut panel =
+            Panel::new(x_axis, Axis::new("deviation from terminal line", yu)).with_zero_line();
         for (k, s) in run.series().iter().enumerate() {
             let x: Vec<f64> = s.points.iter().map(|p| p.load * lf).collect();
             let y: Vec<f64> = s
@@ -338,11 +341,7 @@ impl Plot {
             .bars("Monte Carlo", &edges, &counts)?
             .line(&format!("probabilistically symmetric {pct} %"), &sx, &sy)?
             .line(&format!("shortest {pct} %"), &qx, &qy)?
-            .line(
-                &format!("GUM y ± U, k = {:.3} ({pct} %)", g.k),
-                &gx,
-                &gy,
-            )?;
+            .line(&format!("GUM y ± U, k = {:.3} ({pct} %)", g.k), &gx, &gy)?;
         Ok(Plot::new(format!(
             "Monte Carlo, {} trials (JCGM 101:2008)",
             values.len()

@@ -318,7 +318,10 @@ fn r60(run: &mut Run, opts: &Map) -> ScriptResult<ClassVerdict> {
     let creep = match (o.raw("creep_time"), o.raw("creep_indication")) {
         (None, None) => None,
         (Some(t), Some(y)) => {
-            let (t, y) = (column_arg(t, "creep_time")?, column_arg(y, "creep_indication")?);
+            let (t, y) = (
+                column_arg(t, "creep_time")?,
+                column_arg(y, "creep_indication")?,
+            );
             let label = run.0.indication_unit().to_string();
             Some(CreepHold::new(
                 &t.values_in("s")?,
@@ -729,7 +732,10 @@ impl Draws {
     fn new(mc: McResult, gum: GumResult, p: f64, shape: &Option<ModelOut>) -> Draws {
         let one = out_q(1.0, shape);
         let (unit, scale) = match one.unit() {
-            Some(u) => (u.symbol().to_string(), one.value_in(u.symbol()).unwrap_or(1.0)),
+            Some(u) => (
+                u.symbol().to_string(),
+                one.value_in(u.symbol()).unwrap_or(1.0),
+            ),
             // No display unit: SI, labelled as the quantity prints ("1 1/N" gives "1/N").
             None => {
                 let text = one.to_string();
@@ -772,7 +778,11 @@ fn indication_value(v: &Dynamic, label: &str, what: &str) -> ScriptResult<f64> {
             "UnitError",
             format!(
                 "{what} must be convertible to {}, found {}",
-                if label.is_empty() { "a plain number" } else { label },
+                if label.is_empty() {
+                    "a plain number"
+                } else {
+                    label
+                },
                 *q
             ),
         ));
@@ -791,7 +801,10 @@ fn indication_value(v: &Dynamic, label: &str, what: &str) -> ScriptResult<f64> {
 
 /// A pair `[a, b]` of indications in the run's unit.
 fn indication_pair(v: &Dynamic, label: &str, what: &str) -> ScriptResult<(f64, f64)> {
-    let a = v.read_lock::<Array>().map(|a| a.clone()).unwrap_or_default();
+    let a = v
+        .read_lock::<Array>()
+        .map(|a| a.clone())
+        .unwrap_or_default();
     if a.len() != 2 {
         return Err(fault(
             "ArgumentError",
@@ -829,7 +842,10 @@ fn iso376(run: &mut Run, opts: &Map) -> ScriptResult<Record> {
         .iter()
         .map(|s| -> ScriptResult<Dynamic> {
             let mut m = Map::new();
-            m.insert("force".into(), Dynamic::from(load_q(s.force, run.0.load_kind())?));
+            m.insert(
+                "force".into(),
+                Dynamic::from(load_q(s.force, run.0.load_kind())?),
+            );
             m.insert("reproducibility".into(), Dynamic::from(s.reproducibility));
             m.insert("repeatability".into(), Dynamic::from(s.repeatability));
             m.insert("interpolation".into(), Dynamic::from(s.interpolation));
@@ -950,6 +966,9 @@ pub(crate) fn register(engine: &mut Engine) {
 
     engine.register_get("points", |r: &mut Run| r.0.points().len() as INT);
     engine.register_get("series", |r: &mut Run| r.0.series().len() as INT);
+    engine.register_get("descending_series", |r: &mut Run| {
+        r.0.series_in(Direction::Descending).len() as INT
+    });
 
     func("fit", &["run: CalibrationRun", "degree: Dynamic"], "Fit", r#"
         Least-squares curve of indication against load over every point: degree 1 to 5, or
@@ -1260,7 +1279,12 @@ pub(crate) fn register(engine: &mut Engine) {
 
     func(
         "tc_span",
-        &["rated_output_1: Quantity", "rated_output_2: Quantity", "t1: Quantity", "t2: Quantity"],
+        &[
+            "rated_output_1: Quantity",
+            "rated_output_2: Quantity",
+            "t1: Quantity",
+            "t2: Quantity",
+        ],
         "f64",
         r#"
         Temperature coefficient of span: the relative change of rated output per kelvin between
@@ -1271,10 +1295,18 @@ pub(crate) fn register(engine: &mut Engine) {
         ```
     "#,
     )
-    .register_into_engine(engine, |a: Quantity, b: Quantity, t1: Quantity, t2: Quantity| -> ScriptResult<f64> {
-        let (a, b) = same_dimension(&a, &b, "rated outputs")?;
-        Ok(tc_span(a, b, temperature(&t1, "t1")?, temperature(&t2, "t2")?)?)
-    });
+    .register_into_engine(
+        engine,
+        |a: Quantity, b: Quantity, t1: Quantity, t2: Quantity| -> ScriptResult<f64> {
+            let (a, b) = same_dimension(&a, &b, "rated outputs")?;
+            Ok(tc_span(
+                a,
+                b,
+                temperature(&t1, "t1")?,
+                temperature(&t2, "t2")?,
+            )?)
+        },
+    );
 
     func(
         "inverse_with_uncertainty",
@@ -1287,7 +1319,8 @@ pub(crate) fn register(engine: &mut Engine) {
         ```rhai
         let run = calibration_run(column([0.0, 1.0, 2.0, 3.0, 4.0], "kN"), column([0.1, 0.9, 2.1, 2.9, 4.1], "mV/V"), "ascending");
         let r = run.fit(1).inverse_with_uncertainty(2.0 * mV_per_V, 0.0 * mV_per_V);
-        assert_close(r.load, q("1.95 kN"), 1e-9);
+        // Line fit b = 1.0 mV/V per kN, a = 0.02 mV/V: load (2 − 0.02)/1.0 = 1.98 kN.
+        assert_close(r.load, q("1.98 kN"), 1e-9);
         assert(r.u > 0.0 * N);
         ```
     "#,
