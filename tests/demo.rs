@@ -31,20 +31,29 @@ fn demo_command_prints_the_worked_design_and_writes_the_report() {
 
     // The report folder, by default ./gaugebook-demo, and the line that says where it is.
     let dir = tmp.path().join("gaugebook-demo");
-    assert!(stdout.contains("Report written: gaugebook-demo/index.html"), "{stdout}");
+    assert!(
+        stdout.contains("Report written: gaugebook-demo/index.html"),
+        "{stdout}"
+    );
     let page = std::fs::read_to_string(dir.join("index.html")).unwrap();
     assert!(page.starts_with("<!DOCTYPE html>"));
     assert!(page.contains("2.10328 mV/V"), "the design is on the page");
-    assert!(page.contains("not a type approval"), "the cautions are on the page");
+    assert!(
+        page.contains("not a type approval"),
+        "the cautions are on the page"
+    );
     for nb in [
         "01_load_cell_design",
         "02_calibration_reanalysis",
         "03_fatigue_blocks",
         "04_check_weighing",
     ] {
-        assert!(page.contains(&format!("id=\"{nb}\"")), "{nb} is on the page");
-        let text = std::fs::read_to_string(dir.join("notebooks").join(format!("{nb}.ipynb")))
-            .unwrap();
+        assert!(
+            page.contains(&format!("id=\"{nb}\"")),
+            "{nb} is on the page"
+        );
+        let text =
+            std::fs::read_to_string(dir.join("notebooks").join(format!("{nb}.ipynb"))).unwrap();
         assert!(text.contains("\"execution_count\": 1"), "{nb} ran");
     }
     assert!(page.matches("<svg").count() >= 2, "figures are inline SVG");
@@ -69,5 +78,8 @@ fn demo_command_prints_the_worked_design_and_writes_the_report() {
         "{}",
         String::from_utf8_lossy(&refused.stderr)
     );
-    assert_eq!(std::fs::read_to_string(mine.join("notes.txt")).unwrap(), "keep");
+    assert_eq!(
+        std::fs::read_to_string(mine.join("notes.txt")).unwrap(),
+        "keep"
+    );
 }

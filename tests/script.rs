@@ -589,7 +589,8 @@ out"#,
     noise_density: 8e-9, bandwidth: q("10 Hz"), counts: 1000000 })"#,
     );
     assert!(
-        e.message.contains("no candidate reaches 1000000 noise-free counts")
+        e.message
+            .contains("no candidate reaches 1000000 noise-free counts")
             && e.message.contains("1000 Ω"),
         "{}",
         e.message

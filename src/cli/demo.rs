@@ -50,7 +50,10 @@ const STDLIB: &[(&str, &str)] = &[
         "design_cell.rhai",
         include_str!("../../stdlib/design_cell.rhai"),
     ),
-    ("excitation.rhai", include_str!("../../stdlib/excitation.rhai")),
+    (
+        "excitation.rhai",
+        include_str!("../../stdlib/excitation.rhai"),
+    ),
     ("table.rhai", include_str!("../../stdlib/table.rhai")),
 ];
 
@@ -123,8 +126,11 @@ fn build(root: &Path, design: &DesignReport) -> anyhow::Result<()> {
     std::fs::create_dir_all(&nb_dir)
         .and_then(|()| std::fs::create_dir_all(&lib_dir))
         .with_context(|| format!("cannot create the report folder `{}`", root.display()))?;
-    std::fs::write(root.join(MARKER), "made by `gaugebook demo`; safe to delete\n")
-        .context("cannot write the report marker")?;
+    std::fs::write(
+        root.join(MARKER),
+        "made by `gaugebook demo`; safe to delete\n",
+    )
+    .context("cannot write the report marker")?;
     for (file, text) in STDLIB {
         std::fs::write(lib_dir.join(file), text)
             .with_context(|| format!("cannot write stdlib/{file}"))?;
@@ -140,7 +146,9 @@ fn build(root: &Path, design: &DesignReport) -> anyhow::Result<()> {
     for c in CAUTIONS {
         body.push_str(&format!("<p>{}</p>\n", html_escape(c)));
     }
-    body.push_str("</div>\n<h2>Contents</h2>\n<ul>\n<li><a href=\"#design\">Worked bridge design</a></li>\n");
+    body.push_str(
+        "</div>\n<h2>Contents</h2>\n<ul>\n<li><a href=\"#design\">Worked bridge design</a></li>\n",
+    );
     for (file, _) in NOTEBOOKS {
         body.push_str(&format!(
             "<li><a href=\"#{}\">{}</a></li>\n",
@@ -148,7 +156,9 @@ fn build(root: &Path, design: &DesignReport) -> anyhow::Result<()> {
             html_escape(file)
         ));
     }
-    body.push_str("</ul>\n<section class=\"notebook\" id=\"design\">\n<h2>Worked bridge design</h2>\n");
+    body.push_str(
+        "</ul>\n<section class=\"notebook\" id=\"design\">\n<h2>Worked bridge design</h2>\n",
+    );
     body.push_str(design.to_mime().get("text/html").unwrap_or_default());
     body.push_str("\n</section>\n");
 
@@ -168,8 +178,11 @@ fn build(root: &Path, design: &DesignReport) -> anyhow::Result<()> {
         body.push_str(&format!("<div id=\"{}\"></div>\n", anchor(file)));
         body.push_str(&ran.to_html_section(&format!("notebooks/{file}")));
     }
-    std::fs::write(root.join("index.html"), html_page("Gaugebook demo report", &body))
-        .context("cannot write index.html")?;
+    std::fs::write(
+        root.join("index.html"),
+        html_page("Gaugebook demo report", &body),
+    )
+    .context("cannot write index.html")?;
     Ok(())
 }
 
@@ -188,7 +201,10 @@ mod tests {
         std::fs::write(tmp.path().join("thesis.tex"), "mine").unwrap();
         let design = crate::bridge_design_demo().unwrap();
         let e = write_report(tmp.path(), &design).unwrap_err();
-        assert!(e.to_string().contains("was not made by `gaugebook demo`"), "{e}");
+        assert!(
+            e.to_string().contains("was not made by `gaugebook demo`"),
+            "{e}"
+        );
         assert_eq!(
             std::fs::read_to_string(tmp.path().join("thesis.tex")).unwrap(),
             "mine"

@@ -103,7 +103,10 @@ pub(crate) fn repl(stdlib: Option<PathBuf>) -> anyhow::Result<ExitCode> {
                 let _ = rl.add_history_entry(code.trim_end());
                 // Rhai's `exit` ends a script with a value, which a prompt cannot tell from a
                 // result; a line that is only a leave word leaves.
-                if matches!(code.trim().trim_end_matches(';'), "exit" | "exit()" | "quit") {
+                if matches!(
+                    code.trim().trim_end_matches(';'),
+                    "exit" | "exit()" | "quit"
+                ) {
                     break;
                 }
                 n += 1;
@@ -155,6 +158,10 @@ mod tests {
         let line = "let x = q(\"5 µ";
         let (start, pairs) = complete_line(&s, line, line.len());
         assert_eq!(&line[start..], "µ");
-        assert!(pairs.iter().any(|p| p.replacement.starts_with('µ')), "{:?}", pairs.iter().map(|p| &p.replacement).collect::<Vec<_>>());
+        assert!(
+            pairs.iter().any(|p| p.replacement.starts_with('µ')),
+            "{:?}",
+            pairs.iter().map(|p| &p.replacement).collect::<Vec<_>>()
+        );
     }
 }

@@ -277,7 +277,9 @@ fn stops_queue(msg: &Message, reply: &Message) -> bool {
     let c = &msg.content;
     msg.msg_type() == "execute_request"
         && reply.content.get("status").and_then(Value::as_str) == Some("error")
-        && c.get("stop_on_error").and_then(Value::as_bool).unwrap_or(true)
+        && c.get("stop_on_error")
+            .and_then(Value::as_bool)
+            .unwrap_or(true)
         && !c.get("silent").and_then(Value::as_bool).unwrap_or(false)
 }
 
@@ -510,7 +512,10 @@ impl Kernel {
                 let origin = format!("cell[{count}]");
                 let parent = msg.header.clone();
                 let code2 = code.clone();
-                let allow_stdin = c.get("allow_stdin").and_then(Value::as_bool).unwrap_or(false);
+                let allow_stdin = c
+                    .get("allow_stdin")
+                    .and_then(Value::as_bool)
+                    .unwrap_or(false);
                 let stdin = allow_stdin.then(|| msg.identities.clone());
                 self.ask(|reply| Job::Execute {
                     code: code2,

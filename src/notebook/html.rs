@@ -106,7 +106,10 @@ fn output_html(o: &Output) -> String {
             } else if let Some(html) = data.get("text/html") {
                 format!("<div class=\"result\">{}</div>\n", text_of(html))
             } else if let Some(plain) = data.get("text/plain") {
-                format!("<pre class=\"result\">{}</pre>\n", html_escape(&text_of(plain)))
+                format!(
+                    "<pre class=\"result\">{}</pre>\n",
+                    html_escape(&text_of(plain))
+                )
             } else {
                 String::new()
             }
@@ -277,7 +280,10 @@ mod tests {
     fn outputs_prefer_figures_then_html_then_text() {
         let mut data = std::collections::BTreeMap::new();
         data.insert("text/plain".to_string(), Value::String("fig".into()));
-        data.insert("image/svg+xml".to_string(), Value::String("<svg></svg>".into()));
+        data.insert(
+            "image/svg+xml".to_string(),
+            Value::String("<svg></svg>".into()),
+        );
         let o = Output::DisplayData {
             data,
             metadata: Default::default(),

@@ -25,10 +25,10 @@ pub struct FnDoc {
 
 impl FnDoc {
     /// The first line of the reference text.
-/// ```
-/// let d = gaugebook::script::FnDoc { name: "f".into(), signature: "f()".into(), doc: "Does f.\nMore.".into() };
-/// assert_eq!(d.summary(), "Does f.");
-/// ```
+    /// ```
+    /// let d = gaugebook::script::FnDoc { name: "f".into(), signature: "f()".into(), doc: "Does f.\nMore.".into() };
+    /// assert_eq!(d.summary(), "Does f.");
+    /// ```
     pub fn summary(&self) -> &str {
         self.doc.lines().next().unwrap_or("")
     }

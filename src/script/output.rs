@@ -143,31 +143,31 @@ pub struct CaptureSink {
 
 impl CaptureSink {
     /// Every event so far, in order.
-/// ```
-/// use std::sync::Arc;
-/// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
-/// let sink = Arc::new(CaptureSink::default());
-/// let mut s = Session::new(SessionOptions::default())?;
-/// s.set_output(sink.clone());
-/// s.eval_cell("print(\"a\"); print(\"b\")", "cell[1]")?;
-/// assert_eq!(sink.events().len(), 2);
-/// # Ok::<(), gaugebook::script::ScriptError>(())
-/// ```
+    /// ```
+    /// use std::sync::Arc;
+    /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
+    /// let sink = Arc::new(CaptureSink::default());
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.set_output(sink.clone());
+    /// s.eval_cell("print(\"a\"); print(\"b\")", "cell[1]")?;
+    /// assert_eq!(sink.events().len(), 2);
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn events(&self) -> Vec<OutputEvent> {
         self.events.lock().map(|e| e.clone()).unwrap_or_default()
     }
 
     /// All `print` text so far, concatenated.
-/// ```
-/// use std::sync::Arc;
-/// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
-/// let sink = Arc::new(CaptureSink::default());
-/// let mut s = Session::new(SessionOptions::default())?;
-/// s.set_output(sink.clone());
-/// s.eval_cell("print(\"a\"); debug(\"d\"); print(\"b\")", "cell[1]")?;
-/// assert_eq!(sink.stdout_text(), "a\nb\n");
-/// # Ok::<(), gaugebook::script::ScriptError>(())
-/// ```
+    /// ```
+    /// use std::sync::Arc;
+    /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
+    /// let sink = Arc::new(CaptureSink::default());
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.set_output(sink.clone());
+    /// s.eval_cell("print(\"a\"); debug(\"d\"); print(\"b\")", "cell[1]")?;
+    /// assert_eq!(sink.stdout_text(), "a\nb\n");
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn stdout_text(&self) -> String {
         self.events()
             .into_iter()
@@ -179,16 +179,16 @@ impl CaptureSink {
     }
 
     /// All `debug` text so far, concatenated.
-/// ```
-/// use std::sync::Arc;
-/// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
-/// let sink = Arc::new(CaptureSink::default());
-/// let mut s = Session::new(SessionOptions::default())?;
-/// s.set_output(sink.clone());
-/// s.eval_cell("debug(\"check\")", "cell[1]")?;
-/// assert!(sink.stderr_text().contains("check"));
-/// # Ok::<(), gaugebook::script::ScriptError>(())
-/// ```
+    /// ```
+    /// use std::sync::Arc;
+    /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
+    /// let sink = Arc::new(CaptureSink::default());
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.set_output(sink.clone());
+    /// s.eval_cell("debug(\"check\")", "cell[1]")?;
+    /// assert!(sink.stderr_text().contains("check"));
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn stderr_text(&self) -> String {
         self.events()
             .into_iter()
