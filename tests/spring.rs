@@ -719,7 +719,16 @@ mod design_cell {
             import "design_cell" as dc;
             let d = dc::size(150.0 * N, 2.0 * mV_per_V, #{ material: "2024-T351" });
             assert_eq(d.kind, "parallelogram");
+            assert_eq(d.wiring, "full-bending");
             assert_close(d.rated_output, 2.0 * mV_per_V, 1e-6);
+            // The trade-offs: the sized design between its ±15 % neighbours, thinner giving
+            // more output (RO ∝ 1/h² for the flexures), with the cautions.
+            assert_eq(d.trade_offs.len, 3);
+            assert_close(d.trade_offs.rated_output[1], 2.0 * mV_per_V, 1e-6);
+            assert_close(d.trade_offs.rated_output[0], 2.0 * mV_per_V / (0.85 * 0.85), 1e-6);
+            assert(d.report.contains("design sweep over flexure thickness"));
+            assert(d.report.contains("proven by test"));
+            assert(d.report.contains("licensed practice"));
             d.dimension.value("mm")
         "#)
         .unwrap();
@@ -738,6 +747,35 @@ mod design_cell {
         let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0).unwrap();
         let l = Layout::standard(p, &g, Arrangement::FullBending, 150.0).unwrap();
         assert_close(l.report(0).unwrap().rated_output.mv_per_v(), 2.0, 1e-6, 0.0);
+    }
+
+    #[test]
+    fn sizes_a_torque_shaft_and_a_column() {
+        // Full-shear shaft: RO = GF·γ/2 = GF·8T/(πGd³) (Timoshenko & Gere, Mechanics of
+        // Materials, 4th ed., §3.3, from memory), so d = (2·8T/(πG·RO))^(1/3) for GF 2.
+        let t = run(r#"
+            import "design_cell" as dc;
+            let d = dc::size(50.0 * N_m, 1.5 * mV_per_V, #{});
+            assert_eq(d.kind, "torque shaft");
+            assert_eq(d.wiring, "full-shear");
+            d.dimension.value("mm")
+        "#)
+        .unwrap();
+        let d: f64 = t.trim().parse().unwrap();
+        let g = material("17-4 PH H1025")
+            .unwrap()
+            .shear_modulus()
+            .get::<uom::si::pressure::pascal>();
+        let expected = (2.0 * 8.0 * 50.0 / (std::f64::consts::PI * g * 1.5e-3)).cbrt() * 1e3;
+        assert_close(d, expected, 1e-6, 0.0);
+        let t = run(r#"
+            import "design_cell" as dc;
+            let d = dc::size(200.0 * kN, 1.0 * mV_per_V, #{});
+            assert_eq(d.wiring, "full-poisson");
+            d.kind
+        "#)
+        .unwrap();
+        assert!(t.contains("column"), "{t}");
     }
 
     #[test]
