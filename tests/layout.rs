@@ -396,7 +396,14 @@ fn placement_table_ranks_the_lateral_error_of_a_column() {
     let l = Layout::standard(col, &gauge, Arrangement::FullPoisson, -40e3).unwrap();
     let t = l.placement_sensitivity(0, deg(2.0), mm(0.5)).unwrap();
     assert_eq!(t.rows.len(), 12);
-    assert!(t.rows.windows(2).all(|w| w[0].worst >= w[1].worst));
+    // Sorted from the largest error; ties within round-off (1e-9 of the largest) keep the
+    // gauges' order.
+    let top = t.rows[0].worst;
+    assert!(
+        t.rows
+            .windows(2)
+            .all(|w| w[0].worst >= w[1].worst - 1e-9 * top)
+    );
     let row = &t.rows[0];
     let i = l
         .placements()
