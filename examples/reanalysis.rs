@@ -1,10 +1,12 @@
-//! The reanalysis pipeline of `../shared/bench/peer_reanalysis.py` in Rust, and a side-by-side
-//! benchmark against that Python peer.
+//! The reanalysis pipeline of `../shared/bench/peer_reanalysis.py` in Rust and as a Gaugebook
+//! script, and a side-by-side benchmark against that Python peer.
 //!
 //! ```text
-//! cargo run --release --example reanalysis --features data -- pipeline LOG --out-dir DIR [--format csv|parquet]
-//! cargo run --release --example reanalysis --features data -- bare-read LOG
-//! cargo run --release --example reanalysis --features data -- compare [--rows 1000000,10000000]
+//! cargo run --release --no-default-features --features data --example reanalysis -- pipeline LOG --out-dir DIR [--format csv|parquet] [--block-mib N]
+//! cargo run --release --no-default-features --features data,script --example reanalysis -- script LOG --out-dir DIR [--format csv|parquet]
+//! cargo run --release --no-default-features --features data --example reanalysis -- bare-read LOG
+//! cargo run --release --no-default-features --features data --example reanalysis -- read-only LOG
+//! cargo run --release --no-default-features --features data --example reanalysis -- compare [--rows 1000000,10000000] [--repeat 3] [--only csv-csv,csv-parquet,parquet-parquet]
 //! ```
 //!
 //! `pipeline` does the peer's steps on `sg1_mVV`…`sg4_mVV`: exact quarter-bridge inverse to
@@ -12,14 +14,23 @@
 //! low-pass at 50 Hz from a zero state (scipy.signal.sosfilt), statistics, a degree-1 fit of the
 //! filtered reference load against filtered sg1 strain, then `<stem>_strain.{csv,parquet}` and
 //! `<stem>_summary.json` (schema `bench.reanalysis.summary/1`). The log streams in blocks: the
-//! next block is parsed on a reading thread while this one is converted and filtered, and the
-//! strain file is written by a third thread as the blocks come, so reading, computing and writing
-//! overlap. `timings_s` therefore gives the time the main thread spent in each stage (`read` is
-//! the time it waited for blocks; `write` the wait for the writer to finish after the last block).
+//! next block is parsed on a reading thread while this one is converted, filtered (four channels
+//! through the cascade together) and folded into running statistics (per-block pairwise sums
+//! merged by Chan et al.'s update), and the strain file is written by a third thread as the
+//! blocks come, so reading, computing and writing overlap. Only the mean crossings and the fit
+//! residuals need the final mean and line: one pass over the kept blocks at the end, on two
+//! threads. `timings_s` gives the time the main thread spent in each stage (`read` is the time it
+//! waited for blocks; `write` the wait for the writer).
 //!
-//! `compare` generates the logs into `target/benchdata` with `gen_testlog.py` when missing, runs
-//! the peer, this pipeline and a bare polars read of the same CSV each under `/usr/bin/time -v`,
-//! checks that the summaries agree, and prints wall-time and peak-memory ratios.
+//! `script` runs `examples/reanalysis.rhai`, the same steps written as a Gaugebook script (the
+//! log read whole, each step over whole columns in Rust); its strain file follows the script
+//! writers' convention (headers `name [unit]`, columns in name order).
+//!
+//! `compare` generates the logs into `target/benchdata` with `gen_testlog.py` when missing (with
+//! the Parquet copy when a pyarrow Python is found), then runs the peer, this pipeline (and the
+//! script, when built with `script`) and bare polars reads, each `--repeat` times under
+//! `/usr/bin/time -v`, checks that every summary agrees with the peer's, and prints medians of
+//! wall time, CPU time and peak memory, their ratios, and the load average at the runs' starts.
 
 use std::collections::BTreeMap;
 use std::fmt::Write as _;
@@ -47,6 +58,8 @@ pub fn main() {
         Some("bare-read") => bare_read(&args[1..]),
         Some("read-only") => read_only(&args[1..]),
         Some("compare") => compare(&args[1..]),
+        #[cfg(feature = "script")]
+        Some("script") => script(&args[1..]),
         _ => Err("usage: reanalysis pipeline LOG --out-dir DIR [--format csv|parquet] | bare-read LOG | compare [--rows N,M]".into()),
     };
     if let Err(e) = result {
@@ -95,8 +108,10 @@ struct Timings {
 
 /// Running statistics of one channel, merged block by block (Chan, Golub and LeVeque's pairwise
 /// update of the mean and the sum of squared deviations, 1979 (from memory)), so the statistics
-/// need no pass over the whole record after reading: each block is summed pairwise (numpy's
-/// layout) about its own mean, then merged.
+/// need no pass over the whole record after reading. Within a block one pass gathers the sums of
+/// `x − k` and `(x − k)²` about the block's first sample `k` in four lanes; the shift keeps the
+/// cancellation in `Σ(x−k)² − (Σ(x−k))²/n` to a few units of round-off, since a block's samples
+/// lie within a few standard deviations of `k`.
 #[derive(Clone, Copy)]
 struct Moments {
     n: f64,
@@ -118,18 +133,36 @@ impl Moments {
     }
 
     fn add_block(&mut self, x: &[f64]) {
-        if x.is_empty() {
+        let Some(&k) = x.first() else {
             return;
+        };
+        let (mut s1, mut s2) = ([0.0f64; 4], [0.0f64; 4]);
+        let (mut lo, mut hi) = ([f64::INFINITY; 4], [f64::NEG_INFINITY; 4]);
+        let chunks = x.chunks_exact(4);
+        let tail = chunks.remainder();
+        for c in chunks {
+            for j in 0..4 {
+                let d = c[j] - k;
+                s1[j] += d;
+                s2[j] += d * d;
+                lo[j] = lo[j].min(c[j]);
+                hi[j] = hi[j].max(c[j]);
+            }
+        }
+        for (j, &v) in tail.iter().enumerate() {
+            let d = v - k;
+            s1[j] += d;
+            s2[j] += d * d;
+            lo[j] = lo[j].min(v);
+            hi[j] = hi[j].max(v);
         }
         let nb = x.len() as f64;
-        let mb = pairwise_sum(x) / nb;
-        let m2b = pairwise_by(x.len(), &|i| (x[i] - mb) * (x[i] - mb));
-        let (mut lo, mut hi) = (self.min, self.max);
-        for &v in x {
-            lo = lo.min(v);
-            hi = hi.max(v);
-        }
-        (self.min, self.max) = (lo, hi);
+        let t1 = (s1[0] + s1[1]) + (s1[2] + s1[3]);
+        let t2 = (s2[0] + s2[1]) + (s2[2] + s2[3]);
+        let mb = k + t1 / nb;
+        let m2b = (t2 - t1 * t1 / nb).max(0.0);
+        self.min = lo.iter().copied().fold(self.min, f64::min);
+        self.max = hi.iter().copied().fold(self.max, f64::max);
         let n = self.n + nb;
         let d = mb - self.mean;
         self.mean += d * nb / n;
@@ -138,7 +171,8 @@ impl Moments {
     }
 }
 
-/// Running co-moment of two channels (the same pairwise update), for the least-squares line.
+/// Running co-moment of two channels (the same shifted one-pass sums and pairwise update), for
+/// the least-squares line.
 #[derive(Clone, Copy)]
 struct CoMoments {
     n: f64,
@@ -151,14 +185,39 @@ struct CoMoments {
 
 impl CoMoments {
     fn add_block(&mut self, x: &[f64], y: &[f64]) {
-        if x.is_empty() {
+        let (Some(&kx), Some(&ky)) = (x.first(), y.first()) else {
             return;
+        };
+        let mut acc = [[0.0f64; 4]; 5]; // Σdx, Σdy, Σdx², Σdy², Σdx·dy
+        let mut i = 0;
+        let n4 = x.len().min(y.len()) / 4 * 4;
+        while i < n4 {
+            for j in 0..4 {
+                let dx = x[i + j] - kx;
+                let dy = y[i + j] - ky;
+                acc[0][j] += dx;
+                acc[1][j] += dy;
+                acc[2][j] += dx * dx;
+                acc[3][j] += dy * dy;
+                acc[4][j] += dx * dy;
+            }
+            i += 4;
         }
-        let nb = x.len() as f64;
-        let (bx, by) = (pairwise_sum(x) / nb, pairwise_sum(y) / nb);
-        let sxx = pairwise_by(x.len(), &|i| (x[i] - bx) * (x[i] - bx));
-        let syy = pairwise_by(y.len(), &|i| (y[i] - by) * (y[i] - by));
-        let sxy = pairwise_by(x.len(), &|i| (x[i] - bx) * (y[i] - by));
+        for (j, (xv, yv)) in x[n4..].iter().zip(&y[n4..]).enumerate() {
+            let dx = xv - kx;
+            let dy = yv - ky;
+            acc[0][j] += dx;
+            acc[1][j] += dy;
+            acc[2][j] += dx * dx;
+            acc[3][j] += dy * dy;
+            acc[4][j] += dx * dy;
+        }
+        let t: Vec<f64> = acc.iter().map(|a| (a[0] + a[1]) + (a[2] + a[3])).collect();
+        let nb = x.len().min(y.len()) as f64;
+        let (bx, by) = (kx + t[0] / nb, ky + t[1] / nb);
+        let sxx = t[2] - t[0] * t[0] / nb;
+        let syy = t[3] - t[1] * t[1] / nb;
+        let sxy = t[4] - t[0] * t[1] / nb;
         let n = self.n + nb;
         let (dx, dy) = (bx - self.mx, by - self.my);
         let w = self.n * nb / n;
@@ -491,6 +550,44 @@ fn pipeline(args: &[String]) -> Res<()> {
     Ok(())
 }
 
+/// The same pipeline as `examples/reanalysis.rhai`, run in a scripting session: the script reads
+/// the whole log and runs each step over whole columns.
+#[cfg(feature = "script")]
+fn script(args: &[String]) -> Res<()> {
+    use gaugebook::script::rhai::Dynamic;
+    use gaugebook::script::{Session, SessionOptions};
+    let log = PathBuf::from(args.first().ok_or("script needs a log file")?);
+    let out_dir = PathBuf::from(opt(args, "--out-dir").unwrap_or("reanalysis_out"));
+    let format = opt(args, "--format").unwrap_or("csv");
+    if !matches!(format, "csv" | "parquet") {
+        return Err(format!("unknown --format {format}, expected csv or parquet").into());
+    }
+    std::fs::create_dir_all(&out_dir)?;
+    let text = |p: &Path| p.to_string_lossy().into_owned();
+    let stem = log
+        .file_stem()
+        .map(|s| text(Path::new(s)))
+        .ok_or("log name")?;
+    let input = log
+        .file_name()
+        .map(|s| text(Path::new(s)))
+        .ok_or("log name")?;
+    let here = Path::new(env!("CARGO_MANIFEST_DIR")).join("examples");
+    let source = std::fs::read_to_string(here.join("reanalysis.rhai"))?;
+    let mut session = Session::new(SessionOptions {
+        stdlib_dir: None,
+        script_dir: Some(here.clone()),
+    })?;
+    let abs = |p: &Path| std::path::absolute(p).map(|p| text(&p));
+    session.set_constant("LOG", Dynamic::from(abs(&log)?));
+    session.set_constant("OUT_DIR", Dynamic::from(abs(&out_dir)?));
+    session.set_constant("STEM", Dynamic::from(stem));
+    session.set_constant("INPUT", Dynamic::from(input));
+    session.set_constant("FORMAT", Dynamic::from(format.to_string()));
+    session.eval_cell(&source, &text(&here.join("reanalysis.rhai")))?;
+    Ok(())
+}
+
 /// A JSON number: the shortest text that reads back to the same double (Python's repr too).
 fn num(v: f64) -> String {
     if v.is_finite() {
@@ -586,6 +683,7 @@ fn read_only(args: &[String]) -> Res<()> {
 
 struct Run {
     wall_s: f64,
+    cpu_s: f64,
     peak_mib: f64,
     stdout: String,
 }
@@ -624,8 +722,10 @@ fn timed(cmd: &[&str], cwd: &Path) -> Res<Run> {
     let rss_kb: f64 = field("Maximum resident set size (kbytes):")
         .ok_or("no peak memory")?
         .parse()?;
+    let cpu = |key: &str| -> f64 { field(key).and_then(|v| v.parse().ok()).unwrap_or(f64::NAN) };
     Ok(Run {
         wall_s,
+        cpu_s: cpu("User time (seconds):") + cpu("System time (seconds):"),
         peak_mib: rss_kb / 1024.0,
         stdout: String::from_utf8_lossy(&out.stdout).trim().to_string(),
     })
@@ -634,6 +734,7 @@ fn timed(cmd: &[&str], cwd: &Path) -> Res<Run> {
 /// Medians over repeated runs, and the range of the load average seen at their starts.
 struct Measured {
     wall_s: f64,
+    cpu_s: f64,
     peak_mib: f64,
     load: (f64, f64),
     stdout: String,
@@ -662,6 +763,7 @@ fn measured(cmd: &[&str], cwd: &Path, repeat: usize) -> Res<Measured> {
     let hi = loads.iter().copied().fold(f64::NEG_INFINITY, f64::max);
     Ok(Measured {
         wall_s: median(runs.iter().map(|r| r.wall_s).collect()),
+        cpu_s: median(runs.iter().map(|r| r.cpu_s).collect()),
         peak_mib: median(runs.iter().map(|r| r.peak_mib).collect()),
         load: (lo, hi),
         stdout: runs.pop().map(|r| r.stdout).unwrap_or_default(),
@@ -702,12 +804,12 @@ fn compare(args: &[String]) -> Res<()> {
         .collect();
     let arrow = arrow_python.exists();
     println!(
-        "medians of {repeat} runs; load = 1-minute load average at the start of the runs (2 cores)\n"
+        "medians of {repeat} runs (wall, and CPU = user + system); load = 1-minute load average at the starts of the runs (2 cores)\n"
     );
     println!(
-        "| rows | in → out | peer s | peer MiB | peer load | Gaugebook s | Gaugebook MiB | load | bare read s | bare MiB | load | speed-up | memory ratio | pipeline / bare read |"
+        "| rows | in → out | peer s (CPU s) | peer MiB | load | Gaugebook s (CPU s) | Gaugebook MiB | load | bare CSV read s (CPU s) | bare MiB | load | speed-up | memory ratio | pipeline / bare CSV read (CPU) | bare read of the input, pipeline / it |"
     );
-    println!("|---|---|---|---|---|---|---|---|---|---|---|---|---|---|");
+    println!("|---|---|---|---|---|---|---|---|---|---|---|---|---|---|---|");
     let mut notes = Vec::new();
     for rows in sizes {
         let tag = if rows % 1_000_000 == 0 {
@@ -722,7 +824,10 @@ fn compare(args: &[String]) -> Res<()> {
             // The generator writes the same CSV bytes every time; --parquet adds the copy.
             let gen_py = bench.join("gen_testlog.py");
             let (py, extra) = if want_pq {
-                (arrow_python.to_string_lossy().into_owned(), vec!["--parquet"])
+                (
+                    arrow_python.to_string_lossy().into_owned(),
+                    vec!["--parquet"],
+                )
             } else {
                 (python.clone(), vec![])
             };
@@ -749,24 +854,31 @@ fn compare(args: &[String]) -> Res<()> {
         for variant in &only {
             let (input, output, py) = match variant.as_str() {
                 "csv-csv" => (csv_s, "csv", python.clone()),
-                "csv-parquet" if arrow => {
-                    (csv_s, "parquet", arrow_python.to_string_lossy().into_owned())
-                }
+                "csv-parquet" if arrow => (
+                    csv_s,
+                    "parquet",
+                    arrow_python.to_string_lossy().into_owned(),
+                ),
                 "parquet-parquet" if arrow && pq.exists() => {
                     (pq_s, "parquet", arrow_python.to_string_lossy().into_owned())
                 }
                 _ => continue,
             };
             let in_fmt = if input == pq_s { "parquet" } else { "csv" };
-            let bare_slot = if in_fmt == "parquet" {
-                &mut bare_pq
-            } else {
-                &mut bare_csv
-            };
-            if bare_slot.is_none() {
-                *bare_slot = Some(measured(&[me, "bare-read", input], &data, repeat)?);
+            // The goal is set against a bare read of the CSV; a Parquet input also gets a bare
+            // read of itself.
+            if bare_csv.is_none() {
+                bare_csv = Some(measured(&[me, "bare-read", csv_s], &data, repeat)?);
             }
-            let bare = bare_slot.as_ref().ok_or("bare read")?;
+            if in_fmt == "parquet" && bare_pq.is_none() {
+                bare_pq = Some(measured(&[me, "bare-read", pq_s], &data, repeat)?);
+            }
+            let bare = bare_csv.as_ref().ok_or("bare read")?;
+            let bare_in = if in_fmt == "parquet" {
+                bare_pq.as_ref().ok_or("bare read")?
+            } else {
+                bare
+            };
             let peer_out = data.join(format!("out_peer_{variant}"));
             let rust_out = data.join(format!("out_rust_{variant}"));
             let peer = measured(
@@ -793,27 +905,54 @@ fn compare(args: &[String]) -> Res<()> {
                 &data,
                 repeat,
             )?;
-            println!(
-                "| {rows} | {in_fmt} → {output} | {:.2} | {:.0} | {} | {:.2} | {:.0} | {} | {:.2} | {:.0} | {} | {:.2}× | {:.2}× | {:.2}× |",
-                peer.wall_s,
-                peer.peak_mib,
-                load_text(&peer),
-                ours.wall_s,
-                ours.peak_mib,
-                load_text(&ours),
-                bare.wall_s,
-                bare.peak_mib,
-                load_text(bare),
-                peer.wall_s / ours.wall_s,
-                ours.peak_mib / peer.peak_mib,
-                ours.wall_s / bare.wall_s
-            );
-            notes.push(check_agreement(
-                rows,
-                variant,
-                Path::new(&peer.stdout),
-                Path::new(&ours.stdout),
-            )?);
+            let mut rows_out = vec![("Rust", ours)];
+            #[cfg(feature = "script")]
+            {
+                let script_out = data.join(format!("out_script_{variant}"));
+                let m = measured(
+                    &[
+                        me,
+                        "script",
+                        input,
+                        "--out-dir",
+                        script_out.to_str().ok_or("path")?,
+                        "--format",
+                        output,
+                    ],
+                    &data,
+                    repeat,
+                )?;
+                rows_out.push(("script", m));
+            }
+            for (how, ours) in rows_out {
+                println!(
+                    "| {rows} | {in_fmt} → {output} ({how}) | {:.2} ({:.2}) | {:.0} | {} | {:.2} ({:.2}) | {:.0} | {} | {:.2} ({:.2}) | {:.0} | {} | {:.2}× | {:.2}× | {:.2}× ({:.2}×) | {:.2} s, {:.2}× |",
+                    peer.wall_s,
+                    peer.cpu_s,
+                    peer.peak_mib,
+                    load_text(&peer),
+                    ours.wall_s,
+                    ours.cpu_s,
+                    ours.peak_mib,
+                    load_text(&ours),
+                    bare.wall_s,
+                    bare.cpu_s,
+                    bare.peak_mib,
+                    load_text(bare),
+                    peer.wall_s / ours.wall_s,
+                    ours.peak_mib / peer.peak_mib,
+                    ours.wall_s / bare.wall_s,
+                    ours.cpu_s / bare.cpu_s,
+                    bare_in.wall_s,
+                    ours.wall_s / bare_in.wall_s
+                );
+                notes.push(check_agreement(
+                    rows,
+                    &format!("{variant} ({how})"),
+                    Path::new(&peer.stdout),
+                    Path::new(&ours.stdout),
+                )?);
+            }
         }
     }
     println!();
