@@ -196,6 +196,18 @@ fn r60_creep_z_and_temperature_from_script() {
         run.r60(o).deciding"#
     );
     assert!(eval(&t).starts_with("minimum dead load output change per 5 °C"));
+    // Per-point errors against the MPE: 0.35 v at 0 kN and 1.05 v at 10 kN (p_LC 0.7 × 0.5 and
+    // × 1.5; Table 4, band values from memory), the checks listed with their sources.
+    let points = format!(
+        r#"{setup}
+        let v = run.r60(o);
+        let p = v.points;
+        assert_close(p[0].limit, 0.35 * 10.0 / 3.0 * N, 1e-12);
+        assert_close(p[4].limit, 1.05 * 10.0 / 3.0 * N, 1e-12);
+        assert_eq(p[4].direction, "ascending");
+        v.checks[0].source"#
+    );
+    assert!(eval(&points).starts_with("OIML R 60-1:2021 5.1.2"));
     let half = format!("{setup} o.creep_time = column([0.0, 1800.0], \"s\"); run.r60(o)");
     assert!(fails(&half).contains("both `creep_time` and `creep_indication`"));
 }

@@ -1004,6 +1004,13 @@ pub(crate) fn register(engine: &mut Engine) {
 
     engine.register_get("residual_sd", |c: &mut Curve| c.fit.residual_sd());
     engine.register_get("r_squared", |c: &mut Curve| c.fit.r_squared());
+    engine.register_get("std_errors", |c: &mut Curve| -> Array {
+        c.fit
+            .std_errors()
+            .iter()
+            .map(|&v| Dynamic::from(v))
+            .collect()
+    });
     engine.register_get("dof", |c: &mut Curve| c.fit.dof() as INT);
     engine.register_get("coefficients", |c: &mut Curve| -> Array {
         c.fit
@@ -1110,14 +1117,23 @@ pub(crate) fn register(engine: &mut Engine) {
         r#"
         Evaluates a load cell run against OIML R 60:2021 for the declared class: options
         `class` ("A"–"D"), `n_max`, `e_max`, `v_min`, optional `e_min`, `p_lc`,
-        `dead_load_return`. The verdict names the deciding limit. A computed class verdict is not
-        a type approval or a legal-for-trade certificate; that follows local regulation.
+        `dead_load_return` (DR, N) and a declared `z`; the creep hold at the maximum load as
+        `creep_time` (s from loading, to 30 min) and `creep_indication` columns; the minimum
+        dead load output change `min_load_change` (N) over `temperature_change` (K). The
+        verdict names the deciding limit; `checks` and `points` list every check and each
+        reading's error against its MPE. A computed class verdict is not a type approval or a
+        legal-for-trade certificate; that follows local regulation.
         ```rhai
         let l = column([0.0, 2.5, 5.0, 7.5, 10.0], "kN");
         let run = calibration_run(l, column([0.0, 0.5, 1.0, 1.5, 2.0], "mV/V"), "ascending");
         let v = run.r60(#{ class: "C", n_max: 3000, e_max: 10.0 * kN, v_min: 0.5 * N });
         assert(v.passed);
         assert(v.caution.contains("legal-for-trade"));
+        assert_eq(v.points.len, 5);
+        // Creep 0.0001 mV/V over 30 min = 0.5 N, within 0.7 × 3.5 N (R 60-1 5.5.1).
+        let c = run.r60(#{ class: "C", n_max: 3000, e_max: 10.0 * kN, v_min: 0.5 * N,
+            creep_time: column([0.0, 1200.0, 1800.0], "s"), creep_indication: column([2.0, 2.00009, 2.0001], "mV/V") });
+        assert(c.passed);
         ```
     "#,
     )
@@ -1134,6 +1150,47 @@ pub(crate) fn register(engine: &mut Engine) {
             .map(|d| format!("{} ({})", d.name, d.source))
             .unwrap_or_default()
     });
+    engine.register_get("checks", |v: &mut ClassVerdict| -> Array {
+        v.checks
+            .iter()
+            .map(|c| {
+                let mut m = Map::new();
+                m.insert("name".into(), Dynamic::from(c.name.clone()));
+                m.insert("value".into(), Dynamic::from(c.value));
+                m.insert("limit".into(), Dynamic::from(c.limit));
+                m.insert("unit".into(), Dynamic::from(c.unit.clone()));
+                m.insert("source".into(), Dynamic::from(c.source.clone()));
+                m.insert("passed".into(), Dynamic::from(c.passed));
+                Dynamic::from(m)
+            })
+            .collect()
+    });
+    engine.register_get("points", |v: &mut ClassVerdict| -> ScriptResult<Array> {
+        let unit = v.point_unit.clone();
+        v.points
+            .iter()
+            .map(|p| {
+                let q =
+                    |x: f64| -> ScriptResult<Dynamic> { Ok(Dynamic::from(quantity(x, &unit)?)) };
+                let mut m = Map::new();
+                m.insert(
+                    "load".into(),
+                    Dynamic::from(load_q(p.load, LoadKind::Force)?),
+                );
+                m.insert(
+                    "direction".into(),
+                    Dynamic::from(match p.direction {
+                        Direction::Ascending => "ascending",
+                        Direction::Descending => "descending",
+                    }),
+                );
+                m.insert("series".into(), Dynamic::from(p.series as INT));
+                m.insert("error".into(), q(p.error)?);
+                m.insert("limit".into(), q(p.limit)?);
+                Ok(Dynamic::from(m))
+            })
+            .collect()
+    });
     engine.register_fn("markdown", |v: &mut ClassVerdict| v.table().to_markdown());
     engine.register_fn("csv", |v: &mut ClassVerdict| v.table().to_csv());
 
@@ -1144,7 +1201,8 @@ pub(crate) fn register(engine: &mut Engine) {
         r#"
         ASTM E74-18 evaluation: polynomial of `degree` (default 2), standard deviation s, lower
         limit factor LLF = 2.4 s and the class AA and A loading ranges (lower limits 2000 LLF and
-        400 LLF, not below 2000 and 400 `resolution`s).
+        400 LLF, not below 2000 and 400 `resolution`s). Further standard deviations (forces) in
+        `other` combine with s in quadrature before the factor 2.4 (E74-18, from memory).
         ```rhai
         let f = linspace(1.0 * kN, 10.0 * kN, 10);
         let y = column([0.2, 0.4001, 0.6, 0.7999, 1.0, 1.2001, 1.4, 1.5999, 1.8, 2.0], "mV/V");
