@@ -143,6 +143,6 @@ mod notebook;
 #[cfg(feature = "script")]
 pub use notebook::{
     Cell, CellKind, Drift, DriftKind, Notebook, NotebookError, NumberChange, Output, Provenance,
-    RunOptions, VerifyOptions, VerifyReport, file_hash, rhai_version, run_notebook,
+    RunOptions, VerifyOptions, VerifyReport, file_hash, html_page, rhai_version, run_notebook,
     verify_notebook,
 };
