@@ -221,13 +221,21 @@ impl Column {
         }
     }
 
+    /// A column with `meta`'s dimension, kind and display unit. A result with no display unit
+    /// (a product or quotient: `strain * E`) takes the SI unit its largest value would print
+    /// in (`MPa`), so that it converts, compares and labels like a column read with a unit.
     fn with_meta(data: Arc<Vec<f64>>, meta: &Quantity) -> Column {
-        Column::from_si(
-            data,
-            meta.dimension(),
-            meta.kind(),
-            meta.unit().map(|u| Arc::new(u.clone())),
-        )
+        let unit = match meta.unit() {
+            Some(u) => Some(u.clone()),
+            None => {
+                let big = data
+                    .iter()
+                    .filter(|v| v.is_finite())
+                    .fold(0.0f64, |m, v| m.max(v.abs()));
+                Quantity::from_si(big, meta.dimension(), meta.kind()).shown_unit()
+            }
+        };
+        Column::from_si(data, meta.dimension(), meta.kind(), unit.map(Arc::new))
     }
 
     fn display_values(&self, max: usize) -> String {
