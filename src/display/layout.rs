@@ -103,7 +103,8 @@ impl ToMime for BridgeReport {
             "% RO".into(),
         ]);
         t.note(ESTIMATE_NOTE);
-        let html = g.to_html() + &t.to_html();
+        let mut html = g.to_html();
+        html.push_str(&t.to_html());
         MimeBundle::text(self.to_string()).with("text/html", html)
     }
 }
