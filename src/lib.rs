@@ -61,9 +61,9 @@ pub use calib::{
     tc_zero,
 };
 pub use standards::{
-    Check, ClassVerdict, E74Result, Iso376Class, Iso376Data, Iso376Limits, Iso376Result,
-    Iso376Step, OimlClass, R60Extras, R60LoadCell, VERDICT_CAUTION, classify_iso376, evaluate_e74,
-    evaluate_r60,
+    Check, ClassVerdict, E74Result, ErrorPoint, Iso376Class, Iso376Data, Iso376Limits,
+    Iso376Result, Iso376Step, OimlClass, R60Extras, R60LoadCell, VERDICT_CAUTION, classify_iso376,
+    evaluate_e74, evaluate_r60,
 };
 pub use uncertainty::{
     Budget, Contribution, Distribution, Expanded, GumResult, Input, IntervalKind, McResult,

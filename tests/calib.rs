@@ -563,7 +563,7 @@ mod stdlib_characterise {
             }
             let r = cal::characterise(column(l, "kN"), column(y, "mV/V"),
                 #{ capacity: 10.0 * kN, tolerance: 0.01 * kN, min_samples: 20,
-                   class: "C", n_max: 3000, v_min: 0.5 * N });
+                   class: "C", n_max: 3000, v_min: 0.5 * N, plots: PLOTS });
             assert_eq(r.run.series, 2);
             assert_close(r.figures.rated_output, q("2 mV/V"), 1e-9);
             assert_close(r.figures.nonlinearity, 0.1, 1e-9);
@@ -573,9 +573,23 @@ mod stdlib_characterise {
             assert(!r.verdict.passed);
             assert(r.verdict.deciding.contains("error at 5000 N"));
             assert(r.caution.contains("legal-for-trade"));
+            if PLOTS {
+                // The log has descending steps and a class: all three figures.
+                assert(r.plots.calibration.to_svg().contains("residual (mV/V)"));
+                assert(r.plots.hysteresis.to_svg().contains("descending, series 1"));
+                assert(r.plots.class_errors.to_svg().contains("+MPE"));
+            }
             r.figures.markdown()
-        "#;
-        match s.eval_cell(code, "characterise") {
+        "#
+        .replace(
+            "PLOTS",
+            if cfg!(feature = "plot") {
+                "true"
+            } else {
+                "false"
+            },
+        );
+        match s.eval_cell(&code, "characterise") {
             Ok(out) => {
                 let text = out
                     .value

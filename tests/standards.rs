@@ -316,3 +316,187 @@ fn e74_quadratic_against_numpy() {
     assert_close(r.s, 2.5738233940872988, 1e-7, 0.0);
     assert_close(r.llf, 6.177176145809517, 1e-7, 0.0);
 }
+
+/// Readings of an ISO 376 run: six force steps after a zero reading, each pass with its own
+/// zero offset and gain (deflection 2e-5 per N times the gain).
+fn iso_pass(zero: f64, gain: f64) -> (Vec<f64>, Vec<f64>) {
+    let f: Vec<f64> = (0..=6).map(|i| i as f64 * 20_000.0).collect();
+    let y: Vec<f64> = f.iter().map(|f| zero + gain * 2e-5 * f).collect();
+    (f, y)
+}
+
+fn iso_run(zeros: [f64; 4], gains: [f64; 6]) -> CalibrationRun {
+    let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    let push = |run: &mut CalibrationRun, z: f64, g: f64, rot: f64, down: Option<f64>| {
+        let (f, y) = iso_pass(z, g);
+        run.push_series(&f, &y, Direction::Ascending, rot).unwrap();
+        if let Some(gd) = down {
+            let (mut f, mut y) = iso_pass(z, gd);
+            f.reverse();
+            y.reverse();
+            run.push_series(&f, &y, Direction::Descending, rot).unwrap();
+        }
+    };
+    push(&mut run, zeros[0], gains[0], 0.0, None);
+    push(&mut run, zeros[1], gains[1], 0.0, None);
+    push(&mut run, zeros[2], gains[2], 120.0, Some(gains[3]));
+    push(&mut run, zeros[3], gains[4], 240.0, Some(gains[5]));
+    run
+}
+
+/// The run form of ISO 376 equals the array form built from the same deflections (ISO
+/// 376:2011 7.4 series order, from memory). With zero offsets of 0 the deflections are the
+/// readings, so the data and the results are equal exactly.
+#[test]
+fn iso376_from_run_equals_array_form() {
+    let gains = [1.0, 1.0003, 1.0008, 1.0012, 0.9995, 1.0004];
+    let run = iso_run([0.0; 4], gains);
+    let from_run = Iso376Data::from_run(&run).unwrap();
+    let step = |g: f64| -> Vec<f64> { iso_pass(0.0, g).1[1..].to_vec() };
+    let forces: Vec<f64> = (1..=6).map(|i| i as f64 * 20_000.0).collect();
+    let mut arrays = Iso376Data::new(
+        forces,
+        step(gains[0]),
+        step(gains[1]),
+        step(gains[2]),
+        step(gains[4]),
+    );
+    arrays.x4_decreasing = Some(step(gains[3]));
+    arrays.x6_decreasing = Some(step(gains[5]));
+    assert_eq!(from_run, arrays);
+    let (a, b) = (
+        classify_iso376(&from_run).unwrap(),
+        classify_iso376(&arrays).unwrap(),
+    );
+    assert_eq!(a, b);
+    // Closed form (ISO 376:2011 7.5.1, from memory): b = (max − min)/mean of X1, X3, X5.
+    let (hi, lo, mean) = (1.0008, 0.9995, (1.0 + 1.0008 + 0.9995) / 3.0);
+    assert_close(
+        a.steps[2].reproducibility,
+        (hi - lo) / mean * 100.0,
+        1e-9,
+        0.0,
+    );
+    // v = mean of |X4' − X3|/X3 and |X6' − X5|/X5 (7.5.5, from memory).
+    let v = ((1.0012 - 1.0008) / 1.0008 + (1.0004 - 0.9995) / 0.9995) / 2.0 * 100.0;
+    assert_close(a.steps[0].reversibility.unwrap(), v, 1e-9, 0.0);
+}
+
+/// Each pass's deflections are its readings minus its own zero reading; the decreasing series
+/// is referred to the zero before the increasing series it follows.
+#[test]
+fn iso376_from_run_subtracts_each_zero() {
+    let gains = [1.0, 1.0003, 1.0008, 1.0012, 0.9995, 1.0004];
+    let plain = Iso376Data::from_run(&iso_run([0.0; 4], gains)).unwrap();
+    let offset = Iso376Data::from_run(&iso_run([0.01, -0.02, 0.003, 0.5], gains)).unwrap();
+    let pairs = [
+        (&plain.x1, &offset.x1),
+        (&plain.x2, &offset.x2),
+        (&plain.x3, &offset.x3),
+        (&plain.x5, &offset.x5),
+        (
+            plain.x4_decreasing.as_ref().unwrap(),
+            offset.x4_decreasing.as_ref().unwrap(),
+        ),
+        (
+            plain.x6_decreasing.as_ref().unwrap(),
+            offset.x6_decreasing.as_ref().unwrap(),
+        ),
+    ];
+    for (a, b) in pairs {
+        for (x, y) in a.iter().zip(b) {
+            assert_close(*y, *x, 1e-12, 1e-15);
+        }
+    }
+}
+
+#[test]
+fn iso376_from_run_bad_input() {
+    let msg = |run: &CalibrationRun| Iso376Data::from_run(run).unwrap_err().to_string();
+    // Two mounting positions only.
+    let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    let (f, y) = iso_pass(0.0, 1.0);
+    for rot in [0.0, 0.0, 120.0] {
+        run.push_series(&f, &y, Direction::Ascending, rot).unwrap();
+    }
+    assert!(msg(&run).contains("mounting positions"), "{}", msg(&run));
+    // One increasing series in the first position.
+    let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    for rot in [0.0, 120.0, 240.0] {
+        run.push_series(&f, &y, Direction::Ascending, rot).unwrap();
+    }
+    assert!(msg(&run).contains("X1 and X2"), "{}", msg(&run));
+    // A pass that does not start at zero load.
+    let mut bad = CalibrationRun::new(LoadKind::Force, "mV/V");
+    for rot in [0.0, 0.0, 120.0] {
+        bad.push_series(&f, &y, Direction::Ascending, rot).unwrap();
+    }
+    bad.push_series(&f[1..], &y[1..], Direction::Ascending, 240.0)
+        .unwrap();
+    assert!(
+        msg(&bad).contains("no reading at zero load"),
+        "{}",
+        msg(&bad)
+    );
+    // A pass missing a force step of X1.
+    let mut gap = CalibrationRun::new(LoadKind::Force, "mV/V");
+    for rot in [0.0, 0.0, 120.0] {
+        gap.push_series(&f, &y, Direction::Ascending, rot).unwrap();
+    }
+    let (fg, yg): (Vec<f64>, Vec<f64>) = f
+        .iter()
+        .zip(&y)
+        .filter(|(l, _)| **l != 60_000.0)
+        .map(|(a, b)| (*a, *b))
+        .unzip();
+    gap.push_series(&fg, &yg, Direction::Ascending, 240.0)
+        .unwrap();
+    assert!(
+        msg(&gap).contains("no reading at the force step 60000 N"),
+        "{}",
+        msg(&gap)
+    );
+}
+
+/// The R 60 verdict carries each reading's error and the MPE envelope: the errors are the
+/// checks' values, and the envelope steps from 0.35 v to 0.7 v at 500 v and to 1.05 v at
+/// 2000 v (class C, p_LC = 0.7; R 60-1 Table 4, band values from memory).
+#[test]
+fn r60_verdict_points_and_envelope() {
+    let mut err = [0.0; 11];
+    err[5] = 0.3;
+    let (cell, run) = c3_run(&err);
+    let v = evaluate_r60(&cell, &run, &R60Extras::default()).unwrap();
+    let tv = cell.test_interval();
+    assert_eq!(v.points.len(), 11);
+    assert_eq!(v.point_unit, "N");
+    let p = v.points[5];
+    assert_eq!(
+        (p.load, p.direction, p.series),
+        (5000.0, Direction::Ascending, 0)
+    );
+    assert_close(p.error, 0.3 * tv, 1e-9, 0.0);
+    let check = v
+        .checks
+        .iter()
+        .find(|c| c.name == "error at 5000 N (ascending, series 0)")
+        .unwrap();
+    assert_close(check.value, p.error, 1e-12, 0.0);
+    assert_close(check.limit, p.limit, 1e-12, 0.0);
+    let want = [
+        (0.0, 0.35 * tv),
+        (500.0 * tv, 0.35 * tv),
+        (500.0 * tv, 0.7 * tv),
+        (2000.0 * tv, 0.7 * tv),
+        (2000.0 * tv, 1.05 * tv),
+        (EMAX, 1.05 * tv),
+    ];
+    assert_eq!(v.envelope.len(), want.len(), "{:?}", v.envelope);
+    for ((l, m), (wl, wm)) in v.envelope.iter().zip(want) {
+        assert_close(*l, wl, 1e-12, 1e-9);
+        assert_close(*m, wm, 1e-12, 0.0);
+    }
+    // Other standards carry no per-point envelope.
+    let iso = classify_iso376(&iso_data(0.0, 0.0)).unwrap();
+    assert!(iso.verdict.points.is_empty() && iso.verdict.envelope.is_empty());
+}

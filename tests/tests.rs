@@ -2,6 +2,8 @@
 
 mod bridge;
 mod calib;
+#[cfg(feature = "script")]
+mod calib_script;
 mod chain;
 #[cfg(feature = "cli")]
 mod cli;
@@ -20,6 +22,8 @@ mod layout;
 mod notebook;
 #[cfg(feature = "plot")]
 mod plot;
+#[cfg(feature = "plot")]
+mod report;
 mod rosette;
 #[cfg(feature = "script")]
 mod script;

@@ -1,15 +1,32 @@
 //! Plain report tables (rows of name, value, unit, limit, verdict) with markdown, CSV and HTML
 //! renderings, for the characterisation, class verdicts and uncertainty budgets.
 //!
-//! The tables are plain data; the notebook display goes through [`crate::ToMime`]
-//! (text/plain and text/html). Figures and plots are made from the same numbers elsewhere.
+//! The tables are plain data and text; the notebook display (`ToMime`, text/plain and
+//! text/html) is implemented in the display layer (`src/display/calib.rs`), and figures are
+//! made from the same numbers in `src/plot/report.rs`.
 
 use std::fmt;
 
 use crate::{
-    CalibrationRun, Characterisation, ClassVerdict, Figure, Fit, GumResult, MimeBundle, ToMime,
-    VERDICT_CAUTION, html_escape,
+    CalibrationRun, Characterisation, ClassVerdict, Figure, Fit, GumResult, VERDICT_CAUTION,
 };
+
+/// Escapes text for HTML element content (the physics layer keeps its own small escaper rather
+/// than reaching up into the display layer).
+fn html_escape(text: &str) -> String {
+    let mut out = String::with_capacity(text.len());
+    for c in text.chars() {
+        match c {
+            '<' => out.push_str("&lt;"),
+            '>' => out.push_str("&gt;"),
+            '&' => out.push_str("&amp;"),
+            '"' => out.push_str("&quot;"),
+            '\'' => out.push_str("&#39;"),
+            c => out.push(c),
+        }
+    }
+    out
+}
 
 /// One row of a report table.
 ///
@@ -220,23 +237,17 @@ impl ReportTable {
     }
 }
 
-impl ToMime for ReportTable {
-    fn to_mime(&self) -> MimeBundle {
-        MimeBundle::text(self.to_text()).with("text/html", self.to_html())
-    }
-}
-
 impl Characterisation {
     /// The characterisation table: each figure in % RO and in load units.
     ///
     /// ```
-    /// use gaugebook::{CalibrationRun, Characterisation, CharacteriseOptions, Direction, LoadKind, ToMime};
+    /// use gaugebook::{CalibrationRun, Characterisation, CharacteriseOptions, Direction, LoadKind};
     /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
     /// run.push_series(&[0.0, 500.0, 1000.0], &[0.0, 1.001, 2.0], Direction::Ascending, 0.0)?;
     /// let c = Characterisation::from_run(&run, CharacteriseOptions::new(1000.0))?;
     /// let t = c.table();
     /// assert!(t.to_markdown().contains("| nonlinearity (terminal line) | 0.05 | % RO |"));
-    /// assert!(c.to_mime().get("text/html").unwrap().contains("<table"));
+    /// assert!(t.to_html().contains("<table"));
     /// # Ok::<(), gaugebook::PhysicsError>(())
     /// ```
     pub fn table(&self) -> ReportTable {
@@ -273,22 +284,16 @@ impl Characterisation {
     }
 }
 
-impl ToMime for Characterisation {
-    fn to_mime(&self) -> MimeBundle {
-        self.table().to_mime()
-    }
-}
-
 impl ClassVerdict {
     /// The verdict table: every check with its limit and source, the deciding check noted, and
     /// the caution.
     ///
     /// ```
-    /// use gaugebook::{Check, ClassVerdict, ToMime};
+    /// use gaugebook::{Check, ClassVerdict};
     /// let v = ClassVerdict::new("ISO 376:2011", "1", vec![Check::at_most("creep c", 0.05, 0.10, "%", "Table 2")]);
     /// let md = v.table().to_markdown();
     /// assert!(md.contains("| creep c | 0.05 | % | ≤ 0.1 % (Table 2) | pass |"));
-    /// assert!(v.to_mime().get("text/plain").unwrap().contains("not a type approval"));
+    /// assert!(md.contains("not a type approval"));
     /// ```
     pub fn table(&self) -> ReportTable {
         let outcome = if self.passed {
@@ -315,12 +320,6 @@ impl ClassVerdict {
         }
         t.notes.push(format!("Caution: {VERDICT_CAUTION}."));
         t
-    }
-}
-
-impl ToMime for ClassVerdict {
-    fn to_mime(&self) -> MimeBundle {
-        self.table().to_mime()
     }
 }
 
@@ -368,12 +367,6 @@ impl fmt::Display for GumResult {
     }
 }
 
-impl ToMime for GumResult {
-    fn to_mime(&self) -> MimeBundle {
-        self.table("").to_mime()
-    }
-}
-
 impl fmt::Display for ReportTable {
     /// The markdown form.
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
@@ -414,12 +407,6 @@ impl fmt::Display for Figure {
     }
 }
 
-impl ToMime for Figure {
-    fn to_mime(&self) -> MimeBundle {
-        MimeBundle::text(self.to_string())
-    }
-}
-
 impl fmt::Display for CalibrationRun {
     /// One line: series, points, units.
     ///
@@ -442,8 +429,18 @@ impl fmt::Display for CalibrationRun {
     }
 }
 
-impl ToMime for CalibrationRun {
-    fn to_mime(&self) -> MimeBundle {
+impl CalibrationRun {
+    /// Every point as a table row: series, direction, rotation and load, with the indication.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, LoadKind};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// run.push_series(&[0.0, 100.0], &[0.0, 2.0], Direction::Ascending, 0.0)?;
+    /// let md = run.table().to_markdown();
+    /// assert!(md.contains("| series 0 (ascending, 0°) at 100 N | 2 | mV/V |"));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn table(&self) -> ReportTable {
         let mut t = ReportTable::new(&self.to_string());
         for p in self.points() {
             let dir = match p.direction {
@@ -462,7 +459,7 @@ impl ToMime for CalibrationRun {
                 self.indication_unit(),
             ));
         }
-        t.to_mime().with("text/plain", self.to_string())
+        t
     }
 }
 
@@ -503,12 +500,6 @@ impl fmt::Display for Fit {
     /// The fit table in markdown.
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
         f.write_str(&self.table().to_markdown())
-    }
-}
-
-impl ToMime for Fit {
-    fn to_mime(&self) -> MimeBundle {
-        self.table().to_mime()
     }
 }
 

@@ -4,6 +4,8 @@
 //! the bundle as `execute_result` or `display_data`; in an evcxr Rust notebook,
 //! [`MimeBundle::evcxr_display`] prints it in evcxr's content-block convention.
 
+mod calib;
+
 use std::collections::BTreeMap;
 
 // Views of the physics results (issue 8 item 4) and the evcxr display methods (feature `evcxr`).

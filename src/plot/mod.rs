@@ -12,6 +12,7 @@ mod error;
 mod figure;
 mod output;
 mod render;
+mod report;
 mod thin;
 
 pub use base64::base64_encode;

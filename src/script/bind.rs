@@ -448,6 +448,9 @@ impl<'a> Options<'a> {
 pub(crate) struct Record {
     title: String,
     fields: Vec<(String, Dynamic)>,
+    /// Fields read by name (by functions such as figure builders) but neither printed nor
+    /// listed by `keys`: bulky data such as Monte Carlo draws.
+    hidden: Vec<(String, Dynamic)>,
 }
 
 impl Record {
@@ -456,7 +459,14 @@ impl Record {
         Record {
             title: title.into(),
             fields: Vec::new(),
+            hidden: Vec::new(),
         }
+    }
+
+    /// Adds a field that is read by name but not printed or listed (see `hidden`).
+    pub(crate) fn hidden(mut self, name: &str, value: impl Into<Dynamic>) -> Record {
+        self.hidden.push((name.to_string(), value.into()));
+        self
     }
 
     /// Adds a field (any script value: a Quantity, a Column, a number, a string, a Record …).
@@ -465,9 +475,11 @@ impl Record {
         self
     }
 
-    fn get(&self, name: &str) -> ScriptResult<Dynamic> {
+    /// A field by name (printed or hidden), or an error listing the printed fields.
+    pub(crate) fn get(&self, name: &str) -> ScriptResult<Dynamic> {
         self.fields
             .iter()
+            .chain(&self.hidden)
             .find(|(k, _)| k == name)
             .map(|(_, v)| v.clone())
             .ok_or_else(|| {

@@ -19,7 +19,7 @@
 //! 1000 r (1), 500 r (2), r the resolution.
 
 use super::verdict::{Check, ClassVerdict};
-use crate::{Fit, FitModel, PhysicsError};
+use crate::{CalibrationRun, Direction, Fit, FitModel, PhysicsError, Series};
 
 const STD: &str = "ISO 376:2011";
 
@@ -177,6 +177,146 @@ impl Iso376Data {
             resolution: None,
             degree: 3,
         }
+    }
+}
+
+impl Iso376Data {
+    /// The series of a calibration run in the order ISO 376:2011 7.4 takes them (as recalled,
+    /// from memory): the first two increasing series in the first mounting position give X₁ and
+    /// X₂; in the second and third positions (rotations, in the order they first appear) the
+    /// first increasing series gives X₃ and X₅ and the first decreasing series after it X′₄ and
+    /// X′₆, if there is one. Other series are not used.
+    ///
+    /// Deflections are readings minus the zero-load reading of the increasing series of their
+    /// position and pass (a decreasing series is referred to the zero before the increasing
+    /// series it follows); every used increasing series must therefore start at zero load. The
+    /// force steps are the non-zero loads of X₁; every used series must have a reading at each
+    /// (loads within 10⁻⁶ of the largest load are the same step). Zero before/after, creep,
+    /// resolution and the interpolation degree are not in a run: set those fields afterwards.
+    ///
+    /// ```
+    /// use gaugebook::{CalibrationRun, Direction, Iso376Class, Iso376Data, LoadKind, classify_iso376};
+    /// let mut run = CalibrationRun::new(LoadKind::Force, "mV/V");
+    /// let f = [0.0, 20e3, 40e3, 60e3, 80e3, 100e3];
+    /// let y: Vec<f64> = f.iter().map(|f| 2e-5 * f).collect();
+    /// for rot in [0.0, 0.0, 120.0, 240.0] {
+    ///     run.push_series(&f, &y, Direction::Ascending, rot)?;
+    /// }
+    /// let d = Iso376Data::from_run(&run)?;
+    /// assert_eq!(d.forces, vec![20e3, 40e3, 60e3, 80e3, 100e3]);
+    /// assert_eq!(classify_iso376(&d)?.class, Some(Iso376Class::Zero0));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn from_run(run: &CalibrationRun) -> Result<Iso376Data, PhysicsError> {
+        let unit = run.load_kind().si_unit();
+        let top = run
+            .points()
+            .iter()
+            .map(|p| p.load.abs())
+            .fold(0.0, f64::max);
+        let tol = top * 1e-6;
+        // Mounting positions in the order they first appear.
+        let mut rotations: Vec<f64> = vec![];
+        for s in run.series() {
+            if !rotations.contains(&s.rotation_deg) {
+                rotations.push(s.rotation_deg);
+            }
+        }
+        if rotations.len() < 3 {
+            return Err(PhysicsError::NotEnoughData {
+                what: "an ISO 376 classification (mounting positions)".into(),
+                needed: 3,
+                found: rotations.len(),
+            });
+        }
+        let in_position = |rot: f64| -> Vec<(usize, &Series)> {
+            run.series()
+                .iter()
+                .enumerate()
+                .filter(|(_, s)| s.rotation_deg == rot)
+                .collect()
+        };
+        let first = in_position(rotations[0]);
+        let asc0: Vec<&(usize, &Series)> = first
+            .iter()
+            .filter(|(_, s)| s.direction == Direction::Ascending)
+            .collect();
+        if asc0.len() < 2 {
+            return Err(PhysicsError::NotEnoughData {
+                what: format!(
+                    "increasing series in the first mounting position ({}°) for X1 and X2",
+                    rotations[0]
+                ),
+                needed: 2,
+                found: asc0.len(),
+            });
+        }
+        let zero_of = |s: &Series, name: &str| -> Result<f64, PhysicsError> {
+            s.indication_at(0.0, tol).ok_or_else(|| {
+                PhysicsError::invalid(
+                    format!("series {name} ({}°)", s.rotation_deg),
+                    "no reading at zero load",
+                    "an increasing series that starts at zero load",
+                )
+            })
+        };
+        let forces: Vec<f64> = asc0[0]
+            .1
+            .loads()
+            .into_iter()
+            .filter(|l| l.abs() > tol)
+            .collect();
+        let at_steps = |s: &Series, zero: f64, name: &str| -> Result<Vec<f64>, PhysicsError> {
+            forces
+                .iter()
+                .map(|&f| {
+                    s.indication_at(f, tol).map(|r| r - zero).ok_or_else(|| {
+                        PhysicsError::invalid(
+                            format!("series {name} ({}°)", s.rotation_deg),
+                            format!("no reading at the force step {f} {unit}"),
+                            "a reading at every force step of series X1",
+                        )
+                    })
+                })
+                .collect()
+        };
+        let increasing = |s: &Series, name: &str| -> Result<Vec<f64>, PhysicsError> {
+            at_steps(s, zero_of(s, name)?, name)
+        };
+        let x1 = increasing(asc0[0].1, "X1")?;
+        let x2 = increasing(asc0[1].1, "X2")?;
+        // The increasing series of a later position and the decreasing one that follows it.
+        let pass = |rot: f64,
+                    up: &str,
+                    down: &str|
+         -> Result<(Vec<f64>, Option<Vec<f64>>), PhysicsError> {
+            let list = in_position(rot);
+            let (k, asc) = list
+                .iter()
+                .find(|(_, s)| s.direction == Direction::Ascending)
+                .copied()
+                .ok_or_else(|| {
+                    PhysicsError::invalid(
+                        format!("mounting position {rot}°"),
+                        "no increasing series",
+                        format!("an increasing series for {up}"),
+                    )
+                })?;
+            let zero = zero_of(asc, up)?;
+            let x = at_steps(asc, zero, up)?;
+            let desc = list
+                .iter()
+                .find(|(j, s)| *j > k && s.direction == Direction::Descending)
+                .map(|(_, s)| at_steps(s, zero, down))
+                .transpose()?;
+            Ok((x, desc))
+        };
+        let (x3, x4) = pass(rotations[1], "X3", "X4'")?;
+        let (x5, x6) = pass(rotations[2], "X5", "X6'")?;
+        let mut d = Iso376Data::new(forces, x1, x2, x3, x5);
+        d.x4_decreasing = x4;
+        d.x6_decreasing = x6;
+        Ok(d)
     }
 }
 

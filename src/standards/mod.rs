@@ -15,4 +15,4 @@ pub use iso_376::{
     Iso376Class, Iso376Data, Iso376Limits, Iso376Result, Iso376Step, classify_iso376,
 };
 pub use oiml_r60::{OimlClass, R60Extras, R60LoadCell, evaluate_r60};
-pub use verdict::{Check, ClassVerdict, VERDICT_CAUTION};
+pub use verdict::{Check, ClassVerdict, ErrorPoint, VERDICT_CAUTION};

@@ -32,7 +32,7 @@
 //! A computed class verdict is not a type approval or a legal-for-trade certificate; that
 //! follows local regulation.
 
-use super::verdict::{Check, ClassVerdict};
+use super::verdict::{Check, ClassVerdict, ErrorPoint};
 use crate::{CalibrationRun, CreepHold, Direction, PhysicsError};
 
 const STD: &str = "OIML R 60:2021";
@@ -378,6 +378,7 @@ pub fn evaluate_r60(
     }
     let err_n = |load: f64, ind: f64| (ind - (y0 + slope * (load - d_min))) / slope;
     let src_mpe = "OIML R 60-1:2021 5.3.2, p_LC × Table 4 (band values from memory)";
+    let mut points = vec![];
     for p in run.points() {
         let m = (p.load - d_min) / v;
         let mpe = class.mpe_intervals(m, cell.p_lc) * v;
@@ -385,14 +386,23 @@ pub fn evaluate_r60(
             Direction::Ascending => "ascending",
             Direction::Descending => "descending",
         };
+        let error = err_n(p.load, p.indication);
         checks.push(Check::at_most(
             &format!("error at {} N ({dir}, series {})", p.load, p.series),
-            err_n(p.load, p.indication),
+            error,
             mpe,
             "N",
             src_mpe,
         ));
+        points.push(ErrorPoint {
+            load: p.load,
+            direction: p.direction,
+            series: p.series,
+            error,
+            limit: mpe,
+        });
     }
+    let envelope = mpe_envelope(class, cell.p_lc, v, d_min, d_max);
     // Repeatability: spread of ascending readings at one load.
     for &l in &levels {
         let r: Vec<f64> = run
@@ -464,9 +474,31 @@ pub fn evaluate_r60(
             "OIML R 60-3:2021 2.1.4, ≤ p_LC v_min",
         ));
     }
-    Ok(ClassVerdict::new(
+    let mut verdict = ClassVerdict::new(
         STD,
         &format!("{}, n_max = {}", class.letter(), cell.n_max),
         checks,
-    ))
+    );
+    verdict.points = points;
+    verdict.envelope = envelope;
+    verdict.point_unit = "N".to_string();
+    Ok(verdict)
+}
+
+/// The MPE (N) against load from `d_min` to `d_max` as a step polyline: constant within each
+/// Table 4 band, two pairs at each band edge inside the range (the lower band includes its edge,
+/// as [`OimlClass::mpe_intervals`] does).
+fn mpe_envelope(class: OimlClass, p_lc: f64, v: f64, d_min: f64, d_max: f64) -> Vec<(f64, f64)> {
+    let mpe = |load: f64| class.mpe_intervals((load - d_min) / v, p_lc) * v;
+    let (e1, e2) = class.band_edges();
+    let mut out = vec![(d_min, mpe(d_min))];
+    // Above the first edge the 1.0 band applies, above the second the 1.5 band (Table 4).
+    for (edge, above) in [(d_min + e1 * v, 1.0), (d_min + e2 * v, 1.5)] {
+        if edge > d_min && edge < d_max {
+            out.push((edge, mpe(edge)));
+            out.push((edge, p_lc * above * v));
+        }
+    }
+    out.push((d_max, mpe(d_max)));
+    out
 }

@@ -3,6 +3,8 @@
 
 use std::fmt;
 
+use crate::Direction;
+
 /// The caution every verdict carries.
 ///
 /// ```
@@ -97,6 +99,29 @@ impl Check {
     }
 }
 
+/// One reading's error against the permissible error at its load, for plots of a run against
+/// its class envelope (filled by OIML R 60 evaluations; empty where a standard has no per-point
+/// envelope).
+///
+/// ```
+/// use gaugebook::{Direction, ErrorPoint};
+/// let p = ErrorPoint { load: 5000.0, direction: Direction::Ascending, series: 0, error: 0.4, limit: 0.7 };
+/// assert!(p.error.abs() <= p.limit);
+/// ```
+#[derive(Clone, Copy, Debug, PartialEq)]
+pub struct ErrorPoint {
+    /// Applied load (N or N·m).
+    pub load: f64,
+    /// Direction of the reading's series.
+    pub direction: Direction,
+    /// Index of the reading's series in the run.
+    pub series: usize,
+    /// Error of the reading, in the verdict's `point_unit`.
+    pub error: f64,
+    /// Permissible error (magnitude) at this load, in the same unit.
+    pub limit: f64,
+}
+
 /// The outcome of a class evaluation against one standard.
 ///
 /// The deciding check is the one using the largest share of its limit: the worst failure if
@@ -125,6 +150,14 @@ pub struct ClassVerdict {
     pub checks: Vec<Check>,
     /// All checks passed (and there was at least one).
     pub passed: bool,
+    /// Per-reading errors against the permissible error (empty unless the standard has a
+    /// per-point envelope, as OIML R 60 does).
+    pub points: Vec<ErrorPoint>,
+    /// The permissible error (magnitude) against load as a polyline of (load, limit) pairs over
+    /// the tested range, steps drawn as two pairs at the same load; empty with `points`.
+    pub envelope: Vec<(f64, f64)>,
+    /// Unit of `points` errors and of `envelope` limits (`"N"` for R 60), empty without them.
+    pub point_unit: String,
 }
 
 impl ClassVerdict {
@@ -141,6 +174,9 @@ impl ClassVerdict {
             class: class.to_string(),
             checks,
             passed,
+            points: vec![],
+            envelope: vec![],
+            point_unit: String::new(),
         }
     }
 
