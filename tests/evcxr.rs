@@ -193,7 +193,7 @@ fn rust_notebook_shows_a_quantity_tables_and_a_figure() {
     assert_close(number(&plain), ro, 1e-5, 0.0);
 
     // The margins as an HTML table: von Mises of pure shear is √3·τ (Budynas & Nisbett,
-    // *Shigley's Mechanical Engineering Design*, 9th ed., §5-5, from memory).
+    // *Shigley's Mechanical Engineering Design*, 9th ed., eq. 5-15, from memory).
     let html = shown(&nb, "r12", "text/html");
     let sy = m.yield_strength().get::<pascal>();
     let rated = row(&html, "rated");
