@@ -1,10 +1,12 @@
-//! The reanalysis pipeline of `../shared/bench/peer_reanalysis.py` in Rust, and a side-by-side
-//! benchmark against that Python peer.
+//! The reanalysis pipeline of `../shared/bench/peer_reanalysis.py` in Rust and as a Gaugebook
+//! script, and a side-by-side benchmark against that Python peer.
 //!
 //! ```text
-//! cargo run --release --example reanalysis --features data -- pipeline LOG --out-dir DIR [--format csv|parquet]
-//! cargo run --release --example reanalysis --features data -- bare-read LOG
-//! cargo run --release --example reanalysis --features data -- compare [--rows 1000000,10000000]
+//! cargo run --release --no-default-features --features data --example reanalysis -- pipeline LOG --out-dir DIR [--format csv|parquet] [--block-mib N]
+//! cargo run --release --no-default-features --features data,script --example reanalysis -- script LOG --out-dir DIR [--format csv|parquet]
+//! cargo run --release --no-default-features --features data --example reanalysis -- bare-read LOG
+//! cargo run --release --no-default-features --features data --example reanalysis -- read-only LOG
+//! cargo run --release --no-default-features --features data --example reanalysis -- compare [--rows 1000000,10000000] [--repeat 3] [--only csv-csv,csv-parquet,parquet-parquet]
 //! ```
 //!
 //! `pipeline` does the peer's steps on `sg1_mVV`…`sg4_mVV`: exact quarter-bridge inverse to
@@ -12,26 +14,36 @@
 //! low-pass at 50 Hz from a zero state (scipy.signal.sosfilt), statistics, a degree-1 fit of the
 //! filtered reference load against filtered sg1 strain, then `<stem>_strain.{csv,parquet}` and
 //! `<stem>_summary.json` (schema `bench.reanalysis.summary/1`). The log streams in blocks: the
-//! next block is parsed on a reading thread while this one is converted and filtered, and the
-//! strain file is written by a third thread as the blocks come, so reading, computing and writing
-//! overlap. `timings_s` therefore gives the time the main thread spent in each stage (`read` is
-//! the time it waited for blocks; `write` the wait for the writer to finish after the last block).
+//! next block is parsed on a reading thread while this one is converted, filtered (four channels
+//! through the cascade together) and folded into running statistics (per-block pairwise sums
+//! merged by Chan et al.'s update), and the strain file is written by a third thread as the
+//! blocks come, so reading, computing and writing overlap. Only the mean crossings and the fit
+//! residuals need the final mean and line: one pass over the kept blocks at the end, on two
+//! threads. `timings_s` gives the time the main thread spent in each stage (`read` is the time it
+//! waited for blocks; `write` the wait for the writer).
 //!
-//! `compare` generates the logs into `target/benchdata` with `gen_testlog.py` when missing, runs
-//! the peer, this pipeline and a bare polars read of the same CSV each under `/usr/bin/time -v`,
-//! checks that the summaries agree, and prints wall-time and peak-memory ratios.
+//! `script` runs `examples/reanalysis.rhai`, the same steps written as a Gaugebook script (the
+//! log read whole, each step over whole columns in Rust); its strain file follows the script
+//! writers' convention (headers `name [unit]`, columns in name order).
+//!
+//! `compare` generates the logs into `target/benchdata` with `gen_testlog.py` when missing (with
+//! the Parquet copy when a pyarrow Python is found), then runs the peer, this pipeline (and the
+//! script, when built with `script`) and bare polars reads, each `--repeat` times under
+//! `/usr/bin/time -v`, checks that every summary agrees with the peer's, and prints medians of
+//! wall time, CPU time and peak memory, their ratios, and the load average at the runs' starts.
 
 use std::collections::BTreeMap;
 use std::fmt::Write as _;
 use std::path::{Path, PathBuf};
 use std::process::Command;
+use std::sync::Arc;
 use std::sync::mpsc::sync_channel;
 use std::time::Instant;
 
 use gaugebook::units::Frequency;
 use gaugebook::{
     Arrangement, ColumnWriter, ExportOptions, FilterBand, LogFormat, LogOptions, SosFilter,
-    StreamingFilter, open_log,
+    StreamingBank, open_log,
 };
 use uom::si::frequency::hertz;
 
@@ -46,6 +58,8 @@ pub fn main() {
         Some("bare-read") => bare_read(&args[1..]),
         Some("read-only") => read_only(&args[1..]),
         Some("compare") => compare(&args[1..]),
+        #[cfg(feature = "script")]
+        Some("script") => script(&args[1..]),
         _ => Err("usage: reanalysis pipeline LOG --out-dir DIR [--format csv|parquet] | bare-read LOG | compare [--rows N,M]".into()),
     };
     if let Err(e) = result {
@@ -66,11 +80,17 @@ fn opt<'a>(args: &'a [String], name: &str) -> Option<&'a str> {
 
 /// The peer's filter: `scipy.signal.butter(order, cutoff, fs=fs, output="sos")` applied one way
 /// from a zero state with `sosfilt`; here the signal module's Butterworth design (same sections
-/// as scipy 1.17.1) and its streaming filter, whose state carries across blocks.
-fn butterworth_lowpass_forward(order: usize, cutoff_hz: f64, fs: f64) -> Res<StreamingFilter> {
+/// as scipy 1.17.1) in a streaming bank: a state per channel carried across blocks, four
+/// channels run together.
+fn butterworth_lowpass_forward(
+    order: usize,
+    cutoff_hz: f64,
+    fs: f64,
+    channels: usize,
+) -> Res<StreamingBank> {
     let hz = Frequency::new::<hertz>;
     let f = SosFilter::butterworth(order, FilterBand::LowPass, hz(cutoff_hz), hz(fs))?;
-    Ok(StreamingFilter::new(f))
+    Ok(StreamingBank::new(f, channels))
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -84,6 +104,148 @@ struct Timings {
     stats: f64,
     fit: f64,
     write: f64,
+}
+
+/// Running statistics of one channel, merged block by block (Chan, Golub and LeVeque's pairwise
+/// update of the mean and the sum of squared deviations, 1979 (from memory)), so the statistics
+/// need no pass over the whole record after reading. Within a block one pass gathers the sums of
+/// `x − k` and `(x − k)²` about the block's first sample `k` in four lanes; the shift keeps the
+/// cancellation in `Σ(x−k)² − (Σ(x−k))²/n` to a few units of round-off, since a block's samples
+/// lie within a few standard deviations of `k`.
+#[derive(Clone, Copy)]
+struct Moments {
+    n: f64,
+    mean: f64,
+    m2: f64,
+    min: f64,
+    max: f64,
+}
+
+impl Moments {
+    fn new() -> Moments {
+        Moments {
+            n: 0.0,
+            mean: 0.0,
+            m2: 0.0,
+            min: f64::INFINITY,
+            max: f64::NEG_INFINITY,
+        }
+    }
+
+    fn add_block(&mut self, x: &[f64]) {
+        let Some(&k) = x.first() else {
+            return;
+        };
+        let (mut s1, mut s2) = ([0.0f64; 4], [0.0f64; 4]);
+        let (mut lo, mut hi) = ([f64::INFINITY; 4], [f64::NEG_INFINITY; 4]);
+        let chunks = x.chunks_exact(4);
+        let tail = chunks.remainder();
+        for c in chunks {
+            for j in 0..4 {
+                let d = c[j] - k;
+                s1[j] += d;
+                s2[j] += d * d;
+                lo[j] = lo[j].min(c[j]);
+                hi[j] = hi[j].max(c[j]);
+            }
+        }
+        for (j, &v) in tail.iter().enumerate() {
+            let d = v - k;
+            s1[j] += d;
+            s2[j] += d * d;
+            lo[j] = lo[j].min(v);
+            hi[j] = hi[j].max(v);
+        }
+        let nb = x.len() as f64;
+        let t1 = (s1[0] + s1[1]) + (s1[2] + s1[3]);
+        let t2 = (s2[0] + s2[1]) + (s2[2] + s2[3]);
+        let mb = k + t1 / nb;
+        let m2b = (t2 - t1 * t1 / nb).max(0.0);
+        self.min = lo.iter().copied().fold(self.min, f64::min);
+        self.max = hi.iter().copied().fold(self.max, f64::max);
+        let n = self.n + nb;
+        let d = mb - self.mean;
+        self.mean += d * nb / n;
+        self.m2 += m2b + d * d * self.n * nb / n;
+        self.n = n;
+    }
+}
+
+/// Running co-moment of two channels (the same shifted one-pass sums and pairwise update), for
+/// the least-squares line.
+#[derive(Clone, Copy)]
+struct CoMoments {
+    n: f64,
+    mx: f64,
+    my: f64,
+    sxx: f64,
+    syy: f64,
+    sxy: f64,
+}
+
+impl CoMoments {
+    fn add_block(&mut self, x: &[f64], y: &[f64]) {
+        let (Some(&kx), Some(&ky)) = (x.first(), y.first()) else {
+            return;
+        };
+        let mut acc = [[0.0f64; 4]; 5]; // Σdx, Σdy, Σdx², Σdy², Σdx·dy
+        let mut i = 0;
+        let n4 = x.len().min(y.len()) / 4 * 4;
+        while i < n4 {
+            for j in 0..4 {
+                let dx = x[i + j] - kx;
+                let dy = y[i + j] - ky;
+                acc[0][j] += dx;
+                acc[1][j] += dy;
+                acc[2][j] += dx * dx;
+                acc[3][j] += dy * dy;
+                acc[4][j] += dx * dy;
+            }
+            i += 4;
+        }
+        for (j, (xv, yv)) in x[n4..].iter().zip(&y[n4..]).enumerate() {
+            let dx = xv - kx;
+            let dy = yv - ky;
+            acc[0][j] += dx;
+            acc[1][j] += dy;
+            acc[2][j] += dx * dx;
+            acc[3][j] += dy * dy;
+            acc[4][j] += dx * dy;
+        }
+        let t: Vec<f64> = acc.iter().map(|a| (a[0] + a[1]) + (a[2] + a[3])).collect();
+        let nb = x.len().min(y.len()) as f64;
+        let (bx, by) = (kx + t[0] / nb, ky + t[1] / nb);
+        let sxx = t[2] - t[0] * t[0] / nb;
+        let syy = t[3] - t[1] * t[1] / nb;
+        let sxy = t[4] - t[0] * t[1] / nb;
+        let n = self.n + nb;
+        let (dx, dy) = (bx - self.mx, by - self.my);
+        let w = self.n * nb / n;
+        self.sxx += sxx + dx * dx * w;
+        self.syy += syy + dy * dy * w;
+        self.sxy += sxy + dx * dy * w;
+        self.mx += dx * nb / n;
+        self.my += dy * nb / n;
+        self.n = n;
+    }
+}
+
+/// Rising crossings of `level` over a record held as consecutive blocks:
+/// samples i with `x[i-1] < level <= x[i]`, block boundaries included.
+fn rising_crossings(blocks: &[Arc<Vec<f64>>], level: f64) -> usize {
+    let mut count = 0;
+    let mut prev: Option<f64> = None;
+    for b in blocks {
+        if let (Some(p), Some(&first)) = (prev, b.first()) {
+            count += usize::from(p < level && level <= first);
+        }
+        count += b
+            .windows(2)
+            .filter(|w| w[0] < level && level <= w[1])
+            .count();
+        prev = b.last().copied().or(prev);
+    }
+    count
 }
 
 fn pipeline(args: &[String]) -> Res<()> {
@@ -112,9 +274,11 @@ fn pipeline(args: &[String]) -> Res<()> {
         .map(|c| format!("{c}_mVV"))
         .chain(["load_ref_N".into()])
         .collect();
-    let opts = LogOptions::new().keep(keep).time("time_s");
-    let stream = open_log(&log, &opts)?;
-    let total = stream.total();
+    let mut opts = LogOptions::new().keep(keep).time("time_s");
+    if let Some(mib) = opt(args, "--block-mib") {
+        opts.block_bytes = mib.parse::<usize>()? << 20;
+    }
+    let mut stream = open_log(&log, &opts)?;
     let inv = Arrangement::Quarter.inverse(gf, 0.3)?;
 
     // The strain file is written on its own thread as blocks arrive.
@@ -134,26 +298,36 @@ fn pipeline(args: &[String]) -> Res<()> {
         protect: vec![log.clone()],
     };
     let mut writer = ColumnWriter::create(&strain_path, &names, &export)?;
-    let (wtx, wrx) = sync_channel::<Vec<Vec<f64>>>(2);
-    let writer_thread = std::thread::spawn(move || -> Result<u64, gaugebook::DataError> {
+    // Blocks are shared with the writer, not copied: the filtered strain stays here for the
+    // crossing count, which needs the final mean.
+    let (wtx, wrx) = sync_channel::<Vec<Arc<Vec<f64>>>>(2);
+    // The error is boxed only to keep clippy's large-variant lint quiet on this thread's result.
+    let writer_thread = std::thread::spawn(move || -> Result<u64, Box<gaugebook::DataError>> {
         for block in wrx {
-            let parts: Vec<&[f64]> = block.iter().map(Vec::as_slice).collect();
-            writer.append(&parts)?;
+            let parts: Vec<&[f64]> = block.iter().map(|v| v.as_slice()).collect();
+            writer.append(&parts).map_err(Box::new)?;
         }
-        writer.finish()
+        writer.finish().map_err(Box::new)
     });
 
-    let mut time: Vec<f64> = Vec::new();
-    let mut filt: Vec<Vec<f64>> = vec![Vec::new(); 4];
-    let mut load: Vec<f64> = Vec::new();
+    let mut kept: Vec<Vec<Arc<Vec<f64>>>> = vec![Vec::new(); 5];
+    let mut moments = [Moments::new(); 4];
+    let mut fit = CoMoments {
+        n: 0.0,
+        mx: 0.0,
+        my: 0.0,
+        sxx: 0.0,
+        syy: 0.0,
+        sxy: 0.0,
+    };
     let mut zero: Option<[f64; 4]> = None;
     let mut fs = f64::NAN;
-    let mut filters: Vec<StreamingFilter> = Vec::new();
+    let mut filters: Option<StreamingBank> = None;
     let mut pending: Vec<gaugebook::LogChunk> = Vec::new();
+    let mut first_times: Vec<f64> = Vec::new();
     let mut rows = 0usize;
 
     let mut t = Instant::now();
-    let mut stream = stream;
     loop {
         let next = stream.next().transpose()?;
         tm.read += t.elapsed().as_secs_f64();
@@ -172,30 +346,26 @@ fn pipeline(args: &[String]) -> Res<()> {
             let t0 = Instant::now();
             let ct = c.time.take().ok_or("no time column")?;
             let n = ct.len();
-            if reserve_once(&mut time, n, c.done, total) {
-                for v in filt.iter_mut().chain(std::iter::once(&mut load)) {
-                    v.reserve_exact(time.capacity());
-                }
-            }
-            time.extend_from_slice(&ct);
             let mut ch = std::mem::take(&mut c.channels);
+            if zero.is_none() {
+                first_times.extend_from_slice(&ct[..n.min(10_000 - first_times.len().min(10_000))]);
+            }
             // a) mV/V to microstrain with the exact inverse.
             for v in ch.iter_mut().take(4) {
                 for x in v.iter_mut() {
                     *x = inv.apply(*x * 1e-3) * 1e6;
                 }
             }
-            // b) zero: mean of the first samples, known from the first block.
+            // b) zero: mean of the first samples (of the first block that is held back until it
+            //    has them), and the sample rate from the first 10 000 time steps.
             if zero.is_none() {
-                if time.len() < 2 || ch[0].len() < zero_samples.min(n) {
+                if first_times.len() < 2 || ch[0].len() < zero_samples.min(n) {
                     return Err("too few samples for the zero".into());
                 }
-                let steps = &time[..time.len().min(10_000)];
-                let step = gaugebook::median_step(steps).ok_or("too few samples for the rate")?;
+                let step =
+                    gaugebook::median_step(&first_times).ok_or("too few samples for the rate")?;
                 fs = ((1.0 / step) * 1000.0).round() / 1000.0;
-                filters = (0..5)
-                    .map(|_| butterworth_lowpass_forward(order, cutoff, fs))
-                    .collect::<Res<_>>()?;
+                filters = Some(butterworth_lowpass_forward(order, cutoff, fs, 5)?);
                 let mut z = [0.0; 4];
                 for k in 0..4 {
                     let m = zero_samples.min(ch[k].len());
@@ -208,23 +378,33 @@ fn pipeline(args: &[String]) -> Res<()> {
                 ch[k].iter_mut().for_each(|x| *x -= z[k]);
             }
             tm.convert_zero += t0.elapsed().as_secs_f64();
-            // c) one-way Butterworth.
+            // c) one-way Butterworth, its state carried from block to block.
             let t1 = Instant::now();
-            for (v, f) in ch.iter_mut().zip(filters.iter_mut()) {
-                f.process(v)?;
-            }
+            let mut parts: Vec<&mut [f64]> = ch.iter_mut().map(|v| &mut v[..]).collect();
+            filters.as_mut().ok_or("filter")?.process(&mut parts)?;
             tm.filter += t1.elapsed().as_secs_f64();
+            // d) and e): this block's share of the statistics and of the fit.
             let t2 = Instant::now();
             for k in 0..4 {
-                filt[k].extend_from_slice(&ch[k]);
+                moments[k].add_block(&ch[k]);
             }
-            load.extend_from_slice(&ch[4]);
+            tm.stats += t2.elapsed().as_secs_f64();
+            let t3 = Instant::now();
+            fit.add_block(&ch[0], &ch[4]);
+            tm.fit += t3.elapsed().as_secs_f64();
+            let t4 = Instant::now();
             rows += n;
             let mut block = Vec::with_capacity(5);
-            block.push(ct);
-            block.extend(ch.into_iter().take(4));
+            block.push(Arc::new(ct));
+            for (k, v) in ch.into_iter().enumerate() {
+                let v = Arc::new(v);
+                kept[k].push(v.clone());
+                if k < 4 {
+                    block.push(v);
+                }
+            }
             wtx.send(block).map_err(|_| "the writer thread stopped")?;
-            tm.write += t2.elapsed().as_secs_f64();
+            tm.write += t4.elapsed().as_secs_f64();
         }
         if at_end {
             break;
@@ -232,56 +412,66 @@ fn pipeline(args: &[String]) -> Res<()> {
         t = Instant::now();
     }
     drop(wtx);
+    drop(stream);
 
-    // d) statistics.
-    let t3 = Instant::now();
+    // e) force = a + b·strain, least squares (numpy.polyfit deg 1), from the merged moments.
+    let t5 = Instant::now();
+    let b = fit.sxy / fit.sxx;
+    let a = fit.my - b * fit.mx;
+    tm.fit += t5.elapsed().as_secs_f64();
+
+    // d) and e): the crossings need the final mean and r², rmse the fitted line: one pass over
+    //    the kept blocks, on two threads while the writer finishes.
+    let t6 = Instant::now();
+    let means: Vec<f64> = moments.iter().map(|m| m.mean).collect();
+    let (crossings, ss_res) = std::thread::scope(|s| {
+        let h = s.spawn(|| {
+            let c: Vec<usize> = (2..4)
+                .map(|k| rising_crossings(&kept[k], means[k]))
+                .collect();
+            let res: f64 = kept[0]
+                .iter()
+                .zip(&kept[4])
+                .map(|(x, y)| pairwise_by(x.len(), &|i| (y[i] - (a + b * x[i])).powi(2)))
+                .sum();
+            (c, res)
+        });
+        let mut c: Vec<usize> = (0..2)
+            .map(|k| rising_crossings(&kept[k], means[k]))
+            .collect();
+        // A counting thread only panics on a bug; pass that panic on.
+        let (c2, res) = h.join().unwrap_or_else(|p| std::panic::resume_unwind(p));
+        c.extend(c2);
+        (c, res)
+    });
+    drop(kept);
+    let r2 = 1.0 - ss_res / fit.syy;
+    let rmse = (ss_res / fit.n).sqrt();
     let mut stats = String::new();
+    let z = zero.ok_or("zero")?;
     for (k, name) in CHANNELS.iter().enumerate() {
-        let x = &filt[k];
-        let n = x.len() as f64;
-        let mean = pairwise_sum(x) / n;
-        let (mut lo, mut hi) = (f64::INFINITY, f64::NEG_INFINITY);
-        for &v in x {
-            lo = lo.min(v);
-            hi = hi.max(v);
-        }
-        let std = (pairwise_by(x.len(), &|i| (x[i] - mean) * (x[i] - mean)) / (n - 1.0)).sqrt();
-        let crossings = x.windows(2).filter(|w| w[0] < mean && mean <= w[1]).count();
-        let z = zero.ok_or("zero")?[k];
+        let m = &moments[k];
+        let std = (m.m2 / (m.n - 1.0)).sqrt();
         let _ = write!(
             stats,
-            "{}    \"{name}\": {{\n      \"zero_offset_ue\": {},\n      \"min_ue\": {},\n      \"max_ue\": {},\n      \"mean_ue\": {},\n      \"std_ue\": {},\n      \"rising_mean_crossings\": {crossings}\n    }}",
+            "{}    \"{name}\": {{\n      \"zero_offset_ue\": {},\n      \"min_ue\": {},\n      \"max_ue\": {},\n      \"mean_ue\": {},\n      \"std_ue\": {},\n      \"rising_mean_crossings\": {}\n    }}",
             if k > 0 { ",\n" } else { "" },
-            num(z),
-            num(lo),
-            num(hi),
-            num(mean),
-            num(std)
+            num(z[k]),
+            num(m.min),
+            num(m.max),
+            num(m.mean),
+            num(std),
+            crossings[k]
         );
     }
-    tm.stats = t3.elapsed().as_secs_f64();
-
-    // e) force = a + b·strain, least squares (numpy.polyfit deg 1), r² and rmse.
-    let t4 = Instant::now();
-    let (x, y) = (&filt[0], &load);
-    let n = x.len() as f64;
-    let (xm, ym) = (pairwise_sum(x) / n, pairwise_sum(y) / n);
-    let sxy = pairwise_by(x.len(), &|i| (x[i] - xm) * (y[i] - ym));
-    let sxx = pairwise_by(x.len(), &|i| (x[i] - xm) * (x[i] - xm));
-    let b = sxy / sxx;
-    let a = ym - b * xm;
-    let ss_res = pairwise_by(x.len(), &|i| (y[i] - (a + b * x[i])).powi(2));
-    let syy = pairwise_by(y.len(), &|i| (y[i] - ym) * (y[i] - ym));
-    let r2 = 1.0 - ss_res / syy;
-    let rmse = (ss_res / n).sqrt();
-    tm.fit = t4.elapsed().as_secs_f64();
+    tm.stats += t6.elapsed().as_secs_f64();
 
     // f) wait for the strain file.
-    let t5 = Instant::now();
+    let t7 = Instant::now();
     writer_thread
         .join()
         .map_err(|_| "the writer thread panicked")??;
-    tm.write += t5.elapsed().as_secs_f64();
+    tm.write += t7.elapsed().as_secs_f64();
     let total_s = t_all.elapsed().as_secs_f64();
 
     let columns_json: Vec<String> = columns.iter().map(|c| format!("\"{c}\"")).collect();
@@ -361,13 +551,42 @@ fn pipeline(args: &[String]) -> Res<()> {
     Ok(())
 }
 
-/// Reserves the expected final length once (from the share of the file read so far).
-fn reserve_once(v: &mut Vec<f64>, n: usize, done: u64, total: u64) -> bool {
-    if v.capacity() == 0 && done > 0 {
-        v.reserve_exact((n as f64 * total as f64 / done as f64 * 1.01) as usize + 16);
-        return true;
+/// The same pipeline as `examples/reanalysis.rhai`, run in a scripting session: the script reads
+/// the whole log and runs each step over whole columns.
+#[cfg(feature = "script")]
+fn script(args: &[String]) -> Res<()> {
+    use gaugebook::script::rhai::Dynamic;
+    use gaugebook::script::{Session, SessionOptions};
+    let log = PathBuf::from(args.first().ok_or("script needs a log file")?);
+    let out_dir = PathBuf::from(opt(args, "--out-dir").unwrap_or("reanalysis_out"));
+    let format = opt(args, "--format").unwrap_or("csv");
+    if !matches!(format, "csv" | "parquet") {
+        return Err(format!("unknown --format {format}, expected csv or parquet").into());
     }
-    false
+    std::fs::create_dir_all(&out_dir)?;
+    let text = |p: &Path| p.to_string_lossy().into_owned();
+    let stem = log
+        .file_stem()
+        .map(|s| text(Path::new(s)))
+        .ok_or("log name")?;
+    let input = log
+        .file_name()
+        .map(|s| text(Path::new(s)))
+        .ok_or("log name")?;
+    let here = Path::new(env!("CARGO_MANIFEST_DIR")).join("examples");
+    let source = std::fs::read_to_string(here.join("reanalysis.rhai"))?;
+    let mut session = Session::new(SessionOptions {
+        stdlib_dir: None,
+        script_dir: Some(here.clone()),
+    })?;
+    let abs = |p: &Path| std::path::absolute(p).map(|p| text(&p));
+    session.set_constant("LOG", Dynamic::from(abs(&log)?));
+    session.set_constant("OUT_DIR", Dynamic::from(abs(&out_dir)?));
+    session.set_constant("STEM", Dynamic::from(stem));
+    session.set_constant("INPUT", Dynamic::from(input));
+    session.set_constant("FORMAT", Dynamic::from(format.to_string()));
+    session.eval_cell(&source, &text(&here.join("reanalysis.rhai")))?;
+    Ok(())
 }
 
 /// A JSON number: the shortest text that reads back to the same double (Python's repr too).
@@ -425,10 +644,14 @@ fn bare_read(args: &[String]) -> Res<()> {
     use polars::prelude::*;
     let path = args.first().ok_or("bare-read needs a log file")?;
     let t = Instant::now();
-    let df = CsvReadOptions::default()
-        .with_has_header(true)
-        .try_into_reader_with_file_path(Some(path.into()))?
-        .finish()?;
+    let df = if path.ends_with(".parquet") {
+        ParquetReader::new(std::fs::File::open(path)?).finish()?
+    } else {
+        CsvReadOptions::default()
+            .with_has_header(true)
+            .try_into_reader_with_file_path(Some(path.into()))?
+            .finish()?
+    };
     println!(
         "{} rows, {} columns, {:.3} s",
         df.height(),
@@ -461,8 +684,17 @@ fn read_only(args: &[String]) -> Res<()> {
 
 struct Run {
     wall_s: f64,
+    cpu_s: f64,
     peak_mib: f64,
     stdout: String,
+}
+
+/// The 1-minute load average (other work on the machine changes every timing).
+fn load_average() -> f64 {
+    std::fs::read_to_string("/proc/loadavg")
+        .ok()
+        .and_then(|s| s.split_whitespace().next().and_then(|v| v.parse().ok()))
+        .unwrap_or(f64::NAN)
 }
 
 /// Runs a command under `/usr/bin/time -v` and reads its wall time and peak resident memory.
@@ -491,11 +723,56 @@ fn timed(cmd: &[&str], cwd: &Path) -> Res<Run> {
     let rss_kb: f64 = field("Maximum resident set size (kbytes):")
         .ok_or("no peak memory")?
         .parse()?;
+    let cpu = |key: &str| -> f64 { field(key).and_then(|v| v.parse().ok()).unwrap_or(f64::NAN) };
     Ok(Run {
         wall_s,
+        cpu_s: cpu("User time (seconds):") + cpu("System time (seconds):"),
         peak_mib: rss_kb / 1024.0,
         stdout: String::from_utf8_lossy(&out.stdout).trim().to_string(),
     })
+}
+
+/// Medians over repeated runs, and the range of the load average seen at their starts.
+struct Measured {
+    wall_s: f64,
+    cpu_s: f64,
+    peak_mib: f64,
+    load: (f64, f64),
+    stdout: String,
+}
+
+fn median(mut v: Vec<f64>) -> f64 {
+    v.sort_by(f64::total_cmp);
+    let n = v.len();
+    if n == 0 {
+        f64::NAN
+    } else if n % 2 == 1 {
+        v[n / 2]
+    } else {
+        0.5 * (v[n / 2 - 1] + v[n / 2])
+    }
+}
+
+fn measured(cmd: &[&str], cwd: &Path, repeat: usize) -> Res<Measured> {
+    let mut runs = Vec::new();
+    let mut loads = Vec::new();
+    for _ in 0..repeat.max(1) {
+        loads.push(load_average());
+        runs.push(timed(cmd, cwd)?);
+    }
+    let lo = loads.iter().copied().fold(f64::INFINITY, f64::min);
+    let hi = loads.iter().copied().fold(f64::NEG_INFINITY, f64::max);
+    Ok(Measured {
+        wall_s: median(runs.iter().map(|r| r.wall_s).collect()),
+        cpu_s: median(runs.iter().map(|r| r.cpu_s).collect()),
+        peak_mib: median(runs.iter().map(|r| r.peak_mib).collect()),
+        load: (lo, hi),
+        stdout: runs.pop().map(|r| r.stdout).unwrap_or_default(),
+    })
+}
+
+fn load_text(m: &Measured) -> String {
+    format!("{:.1}–{:.1}", m.load.0, m.load.1)
 }
 
 fn compare(args: &[String]) -> Res<()> {
@@ -518,10 +795,22 @@ fn compare(args: &[String]) -> Res<()> {
         .split(',')
         .map(|s| s.trim().parse())
         .collect::<Result<_, _>>()?;
+    let repeat: usize = opt(args, "--repeat").unwrap_or("3").parse()?;
+    // Which comparisons: csv-csv (CSV in, CSV out; the peer without pyarrow), csv-parquet and
+    // parquet-parquet (the peer with pyarrow).
+    let only: Vec<String> = opt(args, "--only")
+        .unwrap_or("csv-csv,csv-parquet,parquet-parquet")
+        .split(',')
+        .map(str::to_string)
+        .collect();
+    let arrow = arrow_python.exists();
     println!(
-        "| rows | output | peer wall s | peer MiB | rust wall s | rust MiB | bare read s | bare MiB | speed-up | memory ratio | pipeline / bare read |"
+        "medians of {repeat} runs (wall, and CPU = user + system); load = 1-minute load average at the starts of the runs (2 cores)\n"
     );
-    println!("|---|---|---|---|---|---|---|---|---|---|---|");
+    println!(
+        "| rows | in → out | peer s (CPU s) | peer MiB | load | Gaugebook s (CPU s) | Gaugebook MiB | load | bare CSV read s (CPU s) | bare MiB | load | speed-up | memory ratio | pipeline / bare CSV read (CPU) | bare read of the input, pipeline / it |"
+    );
+    println!("|---|---|---|---|---|---|---|---|---|---|---|---|---|---|---|");
     let mut notes = Vec::new();
     for rows in sizes {
         let tag = if rows % 1_000_000 == 0 {
@@ -530,9 +819,20 @@ fn compare(args: &[String]) -> Res<()> {
             rows.to_string()
         };
         let csv = data.join(format!("testlog_{tag}.csv"));
-        if !csv.exists() {
+        let pq = data.join(format!("testlog_{tag}.parquet"));
+        let want_pq = arrow && only.iter().any(|o| o.starts_with("parquet"));
+        if !csv.exists() || (want_pq && !pq.exists()) {
+            // The generator writes the same CSV bytes every time; --parquet adds the copy.
             let gen_py = bench.join("gen_testlog.py");
-            let st = Command::new(&python)
+            let (py, extra) = if want_pq {
+                (
+                    arrow_python.to_string_lossy().into_owned(),
+                    vec!["--parquet"],
+                )
+            } else {
+                (python.clone(), vec![])
+            };
+            let st = Command::new(&py)
                 .args([
                     gen_py.to_str().ok_or("path")?,
                     "--rows",
@@ -540,70 +840,121 @@ fn compare(args: &[String]) -> Res<()> {
                     "--out",
                     csv.to_str().ok_or("path")?,
                 ])
+                .args(extra)
                 .status()?;
             if !st.success() {
                 return Err("gen_testlog.py failed".into());
             }
         }
         let csv_s = csv.to_str().ok_or("path")?;
+        let pq_s = pq.to_str().ok_or("path")?;
         let peer_py = bench.join("peer_reanalysis.py");
         let peer_py = peer_py.to_str().ok_or("path")?;
-        let mut variants = vec![("csv", python.clone(), data.join("out_peer_csv"))];
-        if arrow_python.exists() {
-            variants.push((
-                "parquet",
-                arrow_python.to_string_lossy().into_owned(),
-                data.join("out_peer_parquet"),
-            ));
-        }
-        let bare = timed(&[me, "bare-read", csv_s], &data)?;
-        let ro = timed(&[me, "read-only", csv_s], &data)?;
-        notes.push(format!(
-            "{rows} rows: bare polars read (all 7 columns) {:.2} s, {:.0} MiB; Gaugebook read_log of the 6 pipeline columns {:.2} s, {:.0} MiB",
-            bare.wall_s, bare.peak_mib, ro.wall_s, ro.peak_mib
-        ));
-        for (format, py, peer_out) in variants {
-            let rust_out = data.join(format!("out_rust_{format}"));
-            let peer = timed(
+        let mut bare_csv: Option<Measured> = None;
+        let mut bare_pq: Option<Measured> = None;
+        for variant in &only {
+            let (input, output, py) = match variant.as_str() {
+                "csv-csv" => (csv_s, "csv", python.clone()),
+                "csv-parquet" if arrow => (
+                    csv_s,
+                    "parquet",
+                    arrow_python.to_string_lossy().into_owned(),
+                ),
+                "parquet-parquet" if arrow && pq.exists() => {
+                    (pq_s, "parquet", arrow_python.to_string_lossy().into_owned())
+                }
+                _ => continue,
+            };
+            let in_fmt = if input == pq_s { "parquet" } else { "csv" };
+            // The goal is set against a bare read of the CSV; a Parquet input also gets a bare
+            // read of itself.
+            if bare_csv.is_none() {
+                bare_csv = Some(measured(&[me, "bare-read", csv_s], &data, repeat)?);
+            }
+            if in_fmt == "parquet" && bare_pq.is_none() {
+                bare_pq = Some(measured(&[me, "bare-read", pq_s], &data, repeat)?);
+            }
+            let bare = bare_csv.as_ref().ok_or("bare read")?;
+            let bare_in = if in_fmt == "parquet" {
+                bare_pq.as_ref().ok_or("bare read")?
+            } else {
+                bare
+            };
+            let peer_out = data.join(format!("out_peer_{variant}"));
+            let rust_out = data.join(format!("out_rust_{variant}"));
+            let peer = measured(
                 &[
                     py.as_str(),
                     peer_py,
-                    csv_s,
+                    input,
                     "--out-dir",
                     peer_out.to_str().ok_or("path")?,
                 ],
                 &data,
+                repeat,
             )?;
-            let ours = timed(
+            let ours = measured(
                 &[
                     me,
                     "pipeline",
-                    csv_s,
+                    input,
                     "--out-dir",
                     rust_out.to_str().ok_or("path")?,
                     "--format",
-                    format,
+                    output,
                 ],
                 &data,
+                repeat,
             )?;
-            println!(
-                "| {rows} | {format} | {:.2} | {:.0} | {:.2} | {:.0} | {:.2} | {:.0} | {:.2}x | {:.2}x | {:.2}x |",
-                peer.wall_s,
-                peer.peak_mib,
-                ours.wall_s,
-                ours.peak_mib,
-                bare.wall_s,
-                bare.peak_mib,
-                peer.wall_s / ours.wall_s,
-                ours.peak_mib / peer.peak_mib,
-                ours.wall_s / bare.wall_s
-            );
-            notes.push(check_agreement(
-                rows,
-                format,
-                Path::new(&peer.stdout),
-                Path::new(&ours.stdout),
-            )?);
+            #[cfg_attr(not(feature = "script"), allow(unused_mut))]
+            let mut rows_out = vec![("Rust", ours)];
+            #[cfg(feature = "script")]
+            {
+                let script_out = data.join(format!("out_script_{variant}"));
+                let m = measured(
+                    &[
+                        me,
+                        "script",
+                        input,
+                        "--out-dir",
+                        script_out.to_str().ok_or("path")?,
+                        "--format",
+                        output,
+                    ],
+                    &data,
+                    repeat,
+                )?;
+                rows_out.push(("script", m));
+            }
+            for (how, ours) in rows_out {
+                println!(
+                    "| {rows} | {in_fmt} → {output} ({how}) | {:.2} ({:.2}) | {:.0} | {} | {:.2} ({:.2}) | {:.0} | {} | {:.2} ({:.2}) | {:.0} | {} | {:.2}× | {:.2}× | {:.2}× ({:.2}×) | {:.2} s, {:.2}× |",
+                    peer.wall_s,
+                    peer.cpu_s,
+                    peer.peak_mib,
+                    load_text(&peer),
+                    ours.wall_s,
+                    ours.cpu_s,
+                    ours.peak_mib,
+                    load_text(&ours),
+                    bare.wall_s,
+                    bare.cpu_s,
+                    bare.peak_mib,
+                    load_text(bare),
+                    peer.wall_s / ours.wall_s,
+                    ours.peak_mib / peer.peak_mib,
+                    ours.wall_s / bare.wall_s,
+                    ours.cpu_s / bare.cpu_s,
+                    bare_in.wall_s,
+                    ours.wall_s / bare_in.wall_s
+                );
+                notes.push(check_agreement(
+                    rows,
+                    &format!("{variant} ({how})"),
+                    Path::new(&peer.stdout),
+                    Path::new(&ours.stdout),
+                )?);
+            }
         }
     }
     println!();
@@ -658,7 +1009,7 @@ fn check_agreement(rows: usize, format: &str, peer: &Path, ours: &Path) -> Res<S
         // Values near zero (a min near 0 µε) compare absolutely at 1e-9 µε.
         let bad = rel > 1e-9 && (a - b).abs() > 1e-9;
         if rel > worst.0 {
-            worst = (rel, format!("{}", key.join(".")));
+            worst = (rel, key.join("."));
         }
         if bad {
             return Err(format!(

@@ -25,9 +25,10 @@ pub mod units;
 mod signal;
 pub use signal::{
     Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, MAX_FILTER_ORDER, Ramp, RangeBin,
-    SnCurve, SosFilter, StreamingFilter, Summary, counts_by_range, decimate, decimation_filter,
-    find_holds, find_ramps, miner_damage, moving_average, rainflow_cycles, range_histogram,
-    resample_linear, reversals, rising_crossings, summarize, summarize_windows, uniform_times,
+    SnCurve, SosFilter, StreamingBank, StreamingFilter, Summary, counts_by_range, decimate,
+    decimation_filter, find_holds, find_ramps, miner_damage, moving_average, rainflow_cycles,
+    range_histogram, resample_linear, reversals, rising_crossings, summarize, summarize_windows,
+    uniform_times,
 };
 
 pub use display::{MimeBundle, ToMime, html_escape};
@@ -143,6 +144,6 @@ mod notebook;
 #[cfg(feature = "script")]
 pub use notebook::{
     Cell, CellKind, Drift, DriftKind, Notebook, NotebookError, NumberChange, Output, Provenance,
-    RunOptions, VerifyOptions, VerifyReport, file_hash, rhai_version, run_notebook,
+    RunOptions, VerifyOptions, VerifyReport, file_hash, html_page, rhai_version, run_notebook,
     verify_notebook,
 };

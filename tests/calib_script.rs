@@ -255,6 +255,29 @@ mod plots {
         }
     }
 
+    /// A figure returned by a cell shows inline: its bundle carries SVG (the kernel sends it
+    /// as display data).
+    #[test]
+    fn report_figure_is_a_rich_cell_value() {
+        let mut s = gaugebook::script::Session::new(gaugebook::script::SessionOptions::default())
+            .expect("session");
+        let out = s
+            .eval_cell(
+                r#"
+                let run = calibration_run(column([0.0, 5.0, 10.0], "kN"), column([0.0, 1.0, 2.0], "mV/V"), "ascending");
+                run.add_series(column([10.0, 5.0, 0.0], "kN"), column([2.0, 1.002, 0.0], "mV/V"), "descending", 0.0);
+                plot_hysteresis(run)
+                "#,
+                "cell",
+            )
+            .unwrap_or_else(|e| panic!("{}", e.render()));
+        let b = out.value.expect("a value");
+        assert!(
+            b.get("image/svg+xml")
+                .is_some_and(|s| s.contains("hysteresis loop"))
+        );
+    }
+
     #[test]
     fn monte_carlo_figure_from_script() {
         let svg = eval(

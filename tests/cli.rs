@@ -152,3 +152,11 @@ fn repl_evaluates_lines_and_continues_open_blocks() {
     assert!(stdout.contains("700 Ω"), "{stdout}");
     assert!(String::from_utf8_lossy(&out.stderr).contains("cannot add 350 Ω and 1 V"));
 }
+
+#[test]
+fn repl_leaves_on_exit_before_later_lines() {
+    let out = gaugebook(&["repl"], Some("1 + 1\nexit()\nprint(\"after\")\n"));
+    assert!(out.status.success());
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(text.contains('2') && !text.contains("after"), "{text}");
+}

@@ -333,6 +333,14 @@ fn interrupt_stops_a_runaway_cell_and_keeps_the_session() {
 }
 
 #[test]
+fn input_requests_and_stop_on_error_abort_queued_cells() {
+    let Some(out) = run_py("stdin_abort.py", Engine::Session, &[]) else {
+        return;
+    };
+    assert!(out.contains("\"ok\": true"), "{out}");
+}
+
+#[test]
 fn malformed_frames_and_sigint_do_not_kill_the_kernel() {
     let Some(out) = run_py("robust.py", Engine::Session, &[]) else {
         return;

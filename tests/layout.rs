@@ -82,8 +82,16 @@ fn full_bending_bridge_rejects_axial_load_and_uniform_temperature() {
     assert_close(r.nonlinearity, 0.0, 0.0, 1e-9);
     // Span drift: Vo/V = x_m/(1 + x_t) for four arms that all carry the thermal change x_t
     // (bridge equation), so the span moves by the gauge factor's drift (90 ppm/K) less
-    // d x_t/dT = F·1.5 µε/K; the modulus coefficient is zero here.
-    assert_close(r.span_per_kelvin, 90e-6 - 2.05 * 1.5e-6, 1e-6, 0.0);
+    // d x_t/dT = F·1.5 µε/K, less the modulus coefficient β_E (strain ∝ 1/E) and twice the
+    // expansion (a force's stress ∝ F/length²; see `span_drift_is_gauge_factor_drift_...`).
+    let beta = m.modulus_tc().get::<per_kelvin>();
+    let alpha = m.expansion().get::<per_kelvin>();
+    assert_close(
+        r.span_per_kelvin,
+        90e-6 - 2.05 * 1.5e-6 - beta - 2.0 * alpha,
+        1e-6,
+        0.0,
+    );
 }
 
 #[test]
@@ -226,14 +234,61 @@ fn quarter_bridge_temperature_terms() {
         1e-6,
         0.0,
     );
-    // A modulus falling 250 ppm/K raises the strain per newton by as much.
+    // A modulus falling 250 ppm/K raises the strain per newton by as much; the beam's own
+    // expansion lowers it by 2α (force load, stress ∝ F/length²).
+    let alpha = m.expansion().get::<per_kelvin>();
     let m2 = m
         .with_modulus_tc(TemperatureCoefficient::new::<ppm_per_kelvin>(-250.0))
         .unwrap();
     let beam = Cantilever::new(m2, mm(100.0), mm(20.0), mm(5.0), mm(30.0)).unwrap();
     let plain = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0).unwrap();
     let l = Layout::standard(beam, &plain, Arrangement::FullBending, 50.0).unwrap();
-    assert_close(l.report(0).unwrap().span_per_kelvin, 250e-6, 1e-6, 0.0);
+    assert_close(
+        l.report(0).unwrap().span_per_kelvin,
+        250e-6 - 2.0 * alpha,
+        1e-6,
+        0.0,
+    );
+}
+
+#[test]
+fn span_drift_is_gauge_factor_drift_less_modulus_coefficient_less_expansion() {
+    // Closed-form identity. A full bridge of four equal gauges at ±x reads Vo/V = x exactly
+    // (bridge equation), and x = F(T)·ε(T) with F(T) = F(1 + TC_F·ΔT), ε ∝ 1/E(T) =
+    // 1/(E(1 + β_E·ΔT)), and every length scaled by s = 1 + α·ΔT: a force's nominal stress
+    // ∝ F/length² (s⁻²), a torque's ∝ T/length³ (s⁻³). So at the reference temperature
+    //   d ln(RO)/dT = TC_F − β_E − 2α (force),  TC_F − β_E − 3α (torque).
+    // The materials' β_E come from the table (ASME B31.3-2004 Table C-6 family rows, from
+    // memory); a zero thermal output keeps the bridge's 1/(1 + x_t) term out.
+    let t0 = ThermodynamicTemperature::new::<degree_celsius>(20.0);
+    let tc_f = 90e-6;
+    let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0)
+        .unwrap()
+        .with_gauge_factor_tc(TemperatureCoefficient::new::<per_kelvin>(tc_f), t0)
+        .unwrap();
+    let steel = material("17-4 PH H1025").unwrap();
+    let (beta, alpha) = (
+        steel.modulus_tc().get::<per_kelvin>(),
+        steel.expansion().get::<per_kelvin>(),
+    );
+    assert!(
+        beta < -3e-4,
+        "the table gives 17-4 PH a modulus coefficient"
+    );
+    let beam = Cantilever::new(steel.clone(), mm(100.0), mm(20.0), mm(5.0), mm(30.0)).unwrap();
+    let l = Layout::standard(beam, &g, Arrangement::FullBending, 200.0).unwrap();
+    let span = l.report(0).unwrap().span_per_kelvin;
+    assert_close(span, tc_f - beta - 2.0 * alpha, 1e-6, 0.0);
+    // ≈ 90 + 332 − 21.6 ppm/K: the modulus term dominates an uncompensated steel cell.
+    assert!(span > 3.9e-4 && span < 4.1e-4, "{span}");
+    let shaft = TorqueShaft::solid(steel, mm(20.0), mm(100.0), mm(50.0)).unwrap();
+    let l = Layout::standard(shaft, &g, Arrangement::FullShear, 100.0).unwrap();
+    assert_close(
+        l.report(0).unwrap().span_per_kelvin,
+        tc_f - beta - 3.0 * alpha,
+        1e-6,
+        0.0,
+    );
 }
 
 #[test]
@@ -341,7 +396,14 @@ fn placement_table_ranks_the_lateral_error_of_a_column() {
     let l = Layout::standard(col, &gauge, Arrangement::FullPoisson, -40e3).unwrap();
     let t = l.placement_sensitivity(0, deg(2.0), mm(0.5)).unwrap();
     assert_eq!(t.rows.len(), 12);
-    assert!(t.rows.windows(2).all(|w| w[0].worst >= w[1].worst));
+    // Sorted from the largest error; ties within round-off (1e-9 of the largest) keep the
+    // gauges' order.
+    let top = t.rows[0].worst;
+    assert!(
+        t.rows
+            .windows(2)
+            .all(|w| w[0].worst >= w[1].worst - 1e-9 * top)
+    );
     let row = &t.rows[0];
     let i = l
         .placements()

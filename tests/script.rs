@@ -526,3 +526,73 @@ fn bench_column_expression() {
         t_col2 / t_rust2
     );
 }
+
+/// The stdlib's excitation procedure (stdlib/excitation.rhai) against the closed forms it
+/// combines: the power-density limit of an equal-arm bridge V = 2·√(q·A·R) (each gauge carries
+/// half the excitation, P = V²/(4R)); Johnson-Nyquist noise 4kTR of the bridge's output
+/// resistance R (Nyquist, Phys. Rev. 32, 110, 1928, from memory) with k exact (SI Brochure,
+/// 9th edition, 2019); quantisation noise LSB/√12 (Bennett, Bell Syst. Tech. J. 27, 446, 1948,
+/// from memory); noise-free counts = rated output / (6.6 σ) (common practice).
+#[test]
+fn stdlib_excitation_matches_the_closed_forms() {
+    let mut s = session();
+    let rows = text(
+        &mut s,
+        r#"import "excitation" as ex;
+let d = ex::choose(#{
+    length: q("3 mm"), width: q("2.5 mm"), gf: 2.0, power_density: q("1.5 kW/m^2"),
+    supply: q("10 V"), rated_output: q("2 mV/V"), capacity: q("500 N"),
+    gain: 128, bits: 24, ratiometric: 1.0, noise_density: 8e-9, bandwidth: q("10 Hz"),
+    counts: 30000,
+});
+let out = [];
+for r in d.rows { out.push([r.resistance.value("ohm"), r.excitation.value("V"), r.power.value("W"), r.counts]); }
+out.push(d.choice.resistance.value("ohm"));
+out"#,
+    );
+    let k = 1.380649e-23;
+    let t = 296.15;
+    let (area, q_lim, supply, step) = (3e-3 * 2.5e-3, 1500.0, 10.0, 0.5);
+    let mut expected = Vec::new();
+    for r in [120.0_f64, 350.0, 700.0, 1000.0] {
+        let v_max = 2.0 * (q_lim * area * r).sqrt();
+        let v = (v_max.min(supply) / step).floor() * step;
+        let power = v * v / (4.0 * r);
+        let density = (8e-9_f64.powi(2) + 4.0 * k * t * r).sqrt();
+        let amp = density * 10.0_f64.sqrt();
+        let lsb = 2.0 * v / (128.0 * 2f64.powi(24));
+        let sigma = amp.hypot(lsb / 12.0_f64.sqrt());
+        let counts = 2e-3 * v / (6.6 * sigma);
+        expected.push((r, v, power, counts));
+    }
+    let got: Vec<f64> = rows
+        .trim_matches(|c| c == '[' || c == ']')
+        .split(|c| c == ',' || c == '[' || c == ']')
+        .filter_map(|x| x.trim().parse().ok())
+        .collect();
+    assert_eq!(got.len(), 17, "{rows}");
+    for (i, (r, v, p, n)) in expected.iter().enumerate() {
+        let g = &got[4 * i..4 * i + 4];
+        assert_eq!(g[0], *r);
+        assert!((g[1] - v).abs() < 1e-12, "excitation {} vs {v}", g[1]);
+        assert!((g[2] - p).abs() < 1e-6 * p, "power {} vs {p}", g[2]);
+        assert!((g[3] - n).abs() < 1e-3 * n, "counts {} vs {n}", g[3]);
+    }
+    // 120 Ω reaches only ~23 600 counts: the least-power candidate that reaches 30 000 is 350 Ω.
+    assert!(expected[0].3 < 30000.0 && expected[1].3 > 30000.0);
+    assert_eq!(got[16], 350.0);
+    // No candidate reaches a million counts: the error names the best one.
+    let e = err(
+        &mut s,
+        r#"ex::choose(#{ length: q("3 mm"), width: q("2.5 mm"), power_density: q("1.5 kW/m^2"),
+    supply: q("10 V"), rated_output: q("2 mV/V"), capacity: q("500 N"), gain: 128, bits: 24,
+    noise_density: 8e-9, bandwidth: q("10 Hz"), counts: 1000000 })"#,
+    );
+    assert!(
+        e.message
+            .contains("no candidate reaches 1000000 noise-free counts")
+            && e.message.contains("1000 Ω"),
+        "{}",
+        e.message
+    );
+}

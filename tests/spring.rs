@@ -719,7 +719,16 @@ mod design_cell {
             import "design_cell" as dc;
             let d = dc::size(150.0 * N, 2.0 * mV_per_V, #{ material: "2024-T351" });
             assert_eq(d.kind, "parallelogram");
+            assert_eq(d.wiring, "full-bending");
             assert_close(d.rated_output, 2.0 * mV_per_V, 1e-6);
+            // The trade-offs: the sized design between its ±15 % neighbours, thinner giving
+            // more output (RO ∝ 1/h² for the flexures), with the cautions.
+            assert_eq(d.trade_offs.len, 3);
+            assert_close(d.trade_offs.rated_output[1], 2.0 * mV_per_V, 1e-6);
+            assert_close(d.trade_offs.rated_output[0], 2.0 * mV_per_V / (0.85 * 0.85), 1e-6);
+            assert(d.report.contains("design sweep over flexure thickness"));
+            assert(d.report.contains("proven by test"));
+            assert(d.report.contains("licensed practice"));
             d.dimension.value("mm")
         "#)
         .unwrap();
@@ -741,6 +750,35 @@ mod design_cell {
     }
 
     #[test]
+    fn sizes_a_torque_shaft_and_a_column() {
+        // Full-shear shaft: RO = GF·γ/2 = GF·8T/(πGd³) (Timoshenko & Gere, Mechanics of
+        // Materials, 4th ed., §3.3, from memory), so d = (2·8T/(πG·RO))^(1/3) for GF 2.
+        let t = run(r#"
+            import "design_cell" as dc;
+            let d = dc::size(50.0 * N_m, 1.5 * mV_per_V, #{});
+            assert_eq(d.kind, "torque shaft");
+            assert_eq(d.wiring, "full-shear");
+            d.dimension.value("mm")
+        "#)
+        .unwrap();
+        let d: f64 = t.trim().parse().unwrap();
+        let g = material("17-4 PH H1025")
+            .unwrap()
+            .shear_modulus()
+            .get::<uom::si::pressure::pascal>();
+        let expected = (2.0 * 8.0 * 50.0 / (std::f64::consts::PI * g * 1.5e-3)).cbrt() * 1e3;
+        assert_close(d, expected, 1e-6, 0.0);
+        let t = run(r#"
+            import "design_cell" as dc;
+            let d = dc::size(200.0 * kN, 1.0 * mV_per_V, #{});
+            assert_eq(d.wiring, "full-poisson");
+            d.kind
+        "#)
+        .unwrap();
+        assert!(t.contains("column"), "{t}");
+    }
+
+    #[test]
     fn says_so_when_no_design_meets_the_target() {
         // 5 mV/V from an aluminium column needs ~3.8e-3 strain: it yields at 150 % overload.
         let e = run(r#"
@@ -752,5 +790,139 @@ mod design_cell {
             e.contains("yields at the safe overload") || e.contains("no column"),
             "{e}"
         );
+    }
+}
+
+#[cfg(feature = "script")]
+mod script_sweep {
+    //! `sweep` and `solve_for_output` in a session: the table repeats the closed-form rated
+    //! output of a full bending bridge on a cantilever, and agrees with the Rust API.
+
+    use std::sync::Arc;
+
+    use gaugebook::script::{CaptureSink, Session, SessionOptions};
+    use gaugebook::units::{ElectricalResistance, Length};
+    use gaugebook::{
+        Arrangement, Cantilever, DesignCriteria, DesignPoint, Gauge, Layout, material,
+    };
+    use uom::si::electrical_resistance::ohm;
+    use uom::si::length::millimeter;
+    use uom::si::pressure::pascal;
+
+    use crate::common::assert_close;
+
+    fn session() -> Session {
+        let mut s = Session::new(SessionOptions::default()).unwrap();
+        s.set_output(Arc::new(CaptureSink::default()));
+        s
+    }
+
+    fn eval(s: &mut Session, code: &str) -> Result<gaugebook::MimeBundle, String> {
+        match s.eval_cell(code, "sweep test") {
+            Ok(out) => Ok(out.value.unwrap_or_else(|| gaugebook::MimeBundle::text(""))),
+            Err(e) => Err(e.render()),
+        }
+    }
+
+    const BEAM: &str = r#"
+        let beam = |h| layout(cantilever(#{ material: "7075-T6", length: 120.0 * mm,
+            width: 25.0 * mm, depth: h, station: 40.0 * mm }), #{ r0: 350.0 * ohm, gf: 2.0 },
+            "full-bending", 100.0 * N);
+    "#;
+
+    #[test]
+    fn sweep_table_repeats_the_closed_form_rated_output() {
+        let mut s = session();
+        eval(&mut s, BEAM).unwrap();
+        let t = eval(
+            &mut s,
+            r#"let t = sweep(beam, #{ parameter: "depth",
+                values: [4.0 * mm, 6.0 * mm, 8.0 * mm, 30.0 * mm] }); t"#,
+        )
+        .unwrap();
+        let text = t.get("text/plain").unwrap();
+        assert!(text.starts_with("design sweep over depth"), "{text}");
+        assert!(text.contains("skipped depth = 30 mm"), "{text}");
+        assert!(text.contains("proven by test"), "{text}");
+        let html = t.get("text/html").unwrap();
+        assert!(html.contains("<table class=\"gaugebook-sweep\">"), "{html}");
+        assert_eq!(html.matches("<tr>").count(), 4, "{html}");
+        // Four active arms: RO = GF·ε, ε = 6F(L − x)/(E·b·h²) (Timoshenko & Gere, Mechanics of
+        // Materials, 4th ed., §5.5, from memory), at h = 6 mm.
+        let ro: f64 = eval(&mut s, "t.rated_output[1].value(\"mV/V\")")
+            .unwrap()
+            .get("text/plain")
+            .unwrap()
+            .parse()
+            .unwrap();
+        let m = material("7075-T6").unwrap();
+        let e = m.youngs_modulus().get::<pascal>();
+        let eps = 6.0 * 100.0 * 0.08 / (e * 0.025 * 0.006f64.powi(2));
+        assert_close(ro, 2.0 * eps * 1e3, 1e-5, 0.0);
+        // The peak stress and yield factor agree with the Rust API at that depth.
+        let mm = Length::new::<millimeter>;
+        let beam = Cantilever::new(m, mm(120.0), mm(25.0), mm(6.0), mm(40.0)).unwrap();
+        let g = Gauge::new(ElectricalResistance::new::<ohm>(350.0), 2.0).unwrap();
+        let l = Layout::standard(beam, &g, Arrangement::FullBending, 100.0).unwrap();
+        let p = DesignPoint::evaluate(&l, &DesignCriteria::default(), vec![]).unwrap();
+        let yf: f64 = eval(&mut s, "t.rows[1].yield_factor")
+            .unwrap()
+            .get("text/plain")
+            .unwrap()
+            .parse()
+            .unwrap();
+        assert_close(yf, p.yield_factor, 1e-5, 0.0);
+        assert!(p.meets_margins);
+    }
+
+    #[test]
+    fn solve_finds_the_depth_and_says_when_none_meets_the_margin() {
+        let mut s = session();
+        eval(&mut s, BEAM).unwrap();
+        // RO ∝ 1/h² on this beam, so the depth for 1.5 mV/V is h₆·√(RO₆/1.5).
+        let h: f64 = eval(
+            &mut s,
+            r#"let d = solve_for_output(beam, #{ parameter: "depth", lo: 3.0 * mm, hi: 12.0 * mm,
+                target: 1.5 * mV_per_V });
+            assert(d.caution.contains("proven by test"));
+            d.depth.value("mm")"#,
+        )
+        .unwrap()
+        .get("text/plain")
+        .unwrap()
+        .parse()
+        .unwrap();
+        let e = material("7075-T6")
+            .unwrap()
+            .youngs_modulus()
+            .get::<pascal>();
+        let ro6 = 2.0 * 6.0 * 100.0 * 0.08 / (e * 0.025 * 0.006f64.powi(2));
+        assert_close(h, 6.0 * (ro6 / 1.5e-3).sqrt(), 1e-9, 0.0);
+        // 8 mV/V needs a beam so thin that it yields at the 150 % overload: the gauges at
+        // x = 40 mm see 2/3 of the root strain, so RO = 2·(2/3)·σ/E reaches the yield point
+        // (503 MPa) at 1.5 × capacity near 6.2 mV/V.
+        let err = eval(
+            &mut s,
+            r#"solve_for_output(beam, #{ parameter: "depth", lo: 2.0 * mm, hi: 12.0 * mm,
+                target: 8.0 * mV_per_V })"#,
+        )
+        .unwrap_err();
+        assert!(err.contains("yield factor at the safe overload"), "{err}");
+        assert!(err.contains("searching `depth`"), "{err}");
+        // A target outside what the interval reaches.
+        let err = eval(
+            &mut s,
+            r#"solve_for_output(beam, #{ lo: 6.0 * mm, hi: 12.0 * mm, target: 4.0 * mV_per_V })"#,
+        )
+        .unwrap_err();
+        assert!(err.contains("spans"), "{err}");
+        // A build refused at a bound names the value.
+        let err = eval(
+            &mut s,
+            r#"solve_for_output(beam, #{ parameter: "depth", lo: 3.0 * mm, hi: 40.0 * mm,
+                target: 1.0 * mV_per_V })"#,
+        )
+        .unwrap_err();
+        assert!(err.contains("at depth = 40 mm"), "{err}");
     }
 }

@@ -22,6 +22,8 @@ mod layout;
 mod notebook;
 #[cfg(feature = "plot")]
 mod plot;
+#[cfg(feature = "script")]
+mod regression;
 #[cfg(feature = "plot")]
 mod report;
 mod rosette;

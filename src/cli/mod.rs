@@ -8,6 +8,7 @@ use std::process::ExitCode;
 
 use clap::{Parser, Subcommand};
 
+mod demo;
 mod doc;
 // Jupyter kernel subcommand (area: kernel).
 mod kernel;
@@ -24,8 +25,13 @@ struct Args {
 
 #[derive(Subcommand, Debug)]
 enum Command {
-    /// Run the main job on an embedded example and print the results.
-    Demo,
+    /// Run the main job on embedded examples: print the worked design, then write a report
+    /// folder (an HTML page with the tables and figures, and the notebooks it ran).
+    Demo {
+        /// The report folder (default: ./gaugebook-demo); replaced only if a demo made it.
+        #[arg(long, value_name = "DIR")]
+        out: Option<PathBuf>,
+    },
     /// Run a Rhai script headless; `-` reads it from standard input.
     Run {
         /// The script file, or `-` for standard input.
@@ -63,10 +69,16 @@ enum Command {
 /// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
 /// of causes on standard error. A script error exits with 1 after printing
 /// `FILE:LINE:COL: message`, the source line and a caret.
+/// ```no_run
+/// // src/main.rs is exactly this:
+/// fn main() -> std::process::ExitCode {
+///     gaugebook::cli::main()
+/// }
+/// ```
 pub fn main() -> ExitCode {
     let args = Args::parse();
     let result: anyhow::Result<ExitCode> = match args.command {
-        Command::Demo => demo().map(|()| ExitCode::SUCCESS),
+        Command::Demo { out } => demo::demo(out).map(|()| ExitCode::SUCCESS),
         Command::Run { file, set, stdlib } => run::run(&file, &set, stdlib),
         Command::Repl { stdlib } => repl::repl(stdlib),
         Command::Doc { name } => doc::doc(name.as_deref()),
@@ -80,17 +92,6 @@ pub fn main() -> ExitCode {
             ExitCode::FAILURE
         }
     }
-}
-
-/// Prints the embedded worked design.
-fn demo() -> anyhow::Result<()> {
-    let report = gaugebook_demo()?;
-    println!("{report}");
-    Ok(())
-}
-
-fn gaugebook_demo() -> anyhow::Result<crate::DesignReport> {
-    Ok(crate::bridge_design_demo()?)
 }
 
 // ---- Headless notebooks (issue 8): `nb run`, `nb verify` ----

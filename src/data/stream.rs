@@ -380,22 +380,14 @@ fn read_some(
     want: usize,
     path: &Path,
 ) -> Result<usize, DataError> {
+    // `take` + `read_to_end` reads into the spare capacity without zero-filling it first, and
+    // retries on `Interrupted`.
     let start = buf.len();
-    buf.resize(start + want, 0);
-    let mut got = 0;
-    while got < want {
-        match file.read(&mut buf[start + got..]) {
-            Ok(0) => break,
-            Ok(k) => got += k,
-            Err(e) if e.kind() == std::io::ErrorKind::Interrupted => {}
-            Err(e) => {
-                buf.truncate(start + got);
-                return Err(DataError::io(path, "cannot read", e));
-            }
-        }
-    }
-    buf.truncate(start + got);
-    Ok(got)
+    buf.reserve(want);
+    let mut part = Read::by_ref(file).take(want as u64);
+    part.read_to_end(buf)
+        .map_err(|e| DataError::io(path, "cannot read", e))?;
+    Ok(buf.len() - start)
 }
 
 fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
@@ -547,9 +539,10 @@ fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
             }
         }
         done += block.len() as u64;
-        let lines = count_lines(&block);
+        let scan = scan_lines(&block);
+        let lines = scan.lines;
         let result =
-            parse_block(&s, &schema, &block, next_row, lines, &mut last_time).map(|mut c| {
+            parse_block(&s, &schema, &block, &scan, next_row, &mut last_time).map(|mut c| {
                 c.done = done;
                 c
             });
@@ -561,14 +554,51 @@ fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
     }
 }
 
+/// What one pass over a block's line ends finds: the number of lines (a last line without a
+/// line end counts) and whether any line is blank.
+struct LineScan {
+    lines: usize,
+    any_blank: bool,
+}
+
+/// Counts lines and looks for blank ones with memchr's vectorised search for line ends: a line
+/// can only be blank when it starts with whitespace, so only those are looked at closely. (A
+/// byte-by-byte split was a sixth of the reading time.)
+fn scan_lines(block: &[u8]) -> LineScan {
+    let blank_from = |start: usize| {
+        let end = memchr::memchr(b'\n', &block[start..]).map_or(block.len(), |k| start + k);
+        is_blank(&block[start..end])
+    };
+    let starts_blank = |start: usize| match block.get(start) {
+        None => false,
+        Some(b) => b.is_ascii_whitespace() && blank_from(start),
+    };
+    let mut lines = 0;
+    let mut any_blank = starts_blank(0) || block.first() == Some(&b'\n');
+    for p in memchr::memchr_iter(b'\n', block) {
+        lines += 1;
+        if !any_blank && p + 1 < block.len() && starts_blank(p + 1) {
+            any_blank = true;
+        }
+    }
+    if block.last().is_some_and(|&b| b != b'\n') {
+        lines += 1;
+    }
+    LineScan { lines, any_blank }
+}
+
 /// The block without blank lines and the file row of each remaining line, or `None`s when the
-/// block has no blank line (the common case: one pass, no copy).
-fn drop_blank_lines(block: &[u8], first_row: usize) -> (Option<Vec<u8>>, Option<Vec<usize>>) {
-    let body = block.strip_suffix(b"\n").unwrap_or(block);
-    let blank = |l: &[u8]| l.first().is_none_or(|b| b.is_ascii_whitespace()) && is_blank(l);
-    if !body.split(|&b| b == b'\n').any(blank) {
+/// block has no blank line (the common case: no copy).
+fn drop_blank_lines(
+    block: &[u8],
+    scan: &LineScan,
+    first_row: usize,
+) -> (Option<Vec<u8>>, Option<Vec<usize>>) {
+    if !scan.any_blank {
         return (None, None);
     }
+    let body = block.strip_suffix(b"\n").unwrap_or(block);
+    let blank = |l: &[u8]| l.first().is_none_or(|b| b.is_ascii_whitespace()) && is_blank(l);
     let mut out = Vec::with_capacity(block.len());
     let mut rows = Vec::new();
     for (k, line) in body.split(|&b| b == b'\n').enumerate() {
@@ -579,15 +609,6 @@ fn drop_blank_lines(block: &[u8], first_row: usize) -> (Option<Vec<u8>>, Option<
         }
     }
     (Some(out), Some(rows))
-}
-
-fn count_lines(block: &[u8]) -> usize {
-    let n = block.iter().filter(|&&b| b == b'\n').count();
-    if block.last().is_some_and(|&b| b != b'\n') {
-        n + 1
-    } else {
-        n
-    }
 }
 
 fn col_name(i: usize) -> PlSmallStr {
@@ -610,10 +631,11 @@ fn parse_block(
     s: &CsvSetup,
     schema: &SchemaRef,
     block: &[u8],
+    scan: &LineScan,
     first_row: usize,
-    lines: usize,
     last_time: &mut Option<(f64, usize)>,
 ) -> Result<LogChunk, DataError> {
+    let lines = scan.lines;
     let plan = &s.plan;
     let path = &plan.path;
     let mut projection: Vec<usize> = plan.kept().map(|c| c.index).collect();
@@ -626,7 +648,7 @@ fn parse_block(
         .map_parse_options(|p| p.with_separator(s.sep));
     // Policy: blank lines are not rows (polars would read them as rows of nulls). A block with
     // any is parsed from a copy without them, and the file row of each sample is kept.
-    let (compact, rows) = drop_blank_lines(block, first_row);
+    let (compact, rows) = drop_blank_lines(block, scan, first_row);
     let text: &[u8] = compact.as_deref().unwrap_or(block);
     let df = options
         .into_reader_with_file_handle(Cursor::new(text))

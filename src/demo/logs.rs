@@ -79,6 +79,11 @@ pub struct ExampleCell {
 
 /// The invented 500 N load cell of the example notebooks (a plausible OIML class C cell; the
 /// values are chosen for the example, not taken from any instrument).
+/// ```
+/// let c = gaugebook::EXAMPLE_CELL;
+/// assert_eq!(c.capacity_n, 500.0);
+/// assert!(gaugebook::calibration_log().contains(",500.000,")); // the log reaches capacity
+/// ```
 pub const EXAMPLE_CELL: ExampleCell = ExampleCell {
     capacity_n: 500.0,
     rated_output_mv_v: 1.9950,
@@ -198,6 +203,12 @@ pub struct ExampleSpectrum {
 }
 
 /// The spectrum of the example fatigue log.
+/// ```
+/// let s = gaugebook::EXAMPLE_SPECTRUM;
+/// let cycles: u32 = s.blocks.iter().map(|b| b.1).sum();
+/// assert_eq!(cycles, 74);
+/// assert!(gaugebook::fatigue_log().starts_with("time"));
+/// ```
 pub const EXAMPLE_SPECTRUM: ExampleSpectrum = ExampleSpectrum {
     sample_rate_hz: 1000.0,
     cycle_hz: 5.0,
@@ -546,6 +557,11 @@ pub fn fatigue_log() -> String {
 }
 
 /// Every example log, in the order the notebooks use them.
+/// ```
+/// let logs = gaugebook::example_logs();
+/// assert!(logs.iter().all(|l| l.file_name.ends_with(".csv") && l.csv.ends_with('\n')));
+/// assert_eq!(logs[0].csv, gaugebook::calibration_log());
+/// ```
 pub fn example_logs() -> Vec<ExampleLog> {
     vec![
         ExampleLog {

@@ -32,6 +32,11 @@ pub struct MimeBundle {
 
 impl MimeBundle {
     /// A bundle holding only `text/plain`.
+    /// ```
+    /// let b = gaugebook::MimeBundle::text("350 Ω");
+    /// assert_eq!(b.get("text/plain"), Some("350 Ω"));
+    /// assert_eq!(b.get("text/html"), None);
+    /// ```
     pub fn text(plain: impl Into<String>) -> MimeBundle {
         let mut data = BTreeMap::new();
         data.insert("text/plain".to_string(), plain.into());
@@ -40,17 +45,29 @@ impl MimeBundle {
 
     /// Adds (or replaces) one representation. Binary types such as `image/png` hold base64 text,
     /// as the Jupyter message format requires.
+    /// ```
+    /// let b = gaugebook::MimeBundle::text("a").with("text/html", "<p>a</p>").with("text/html", "<b>a</b>");
+    /// assert_eq!(b.get("text/html"), Some("<b>a</b>"));
+    /// ```
     pub fn with(mut self, mime: impl Into<String>, content: impl Into<String>) -> MimeBundle {
         self.data.insert(mime.into(), content.into());
         self
     }
 
     /// The representation for one MIME type.
+    /// ```
+    /// let b = gaugebook::MimeBundle::text("1 kN").with("text/latex", "$1\\,\\mathrm{kN}$");
+    /// assert_eq!(b.get("text/latex"), Some("$1\\,\\mathrm{kN}$"));
+    /// ```
     pub fn get(&self, mime: &str) -> Option<&str> {
         self.data.get(mime).map(String::as_str)
     }
 
     /// The MIME types present, in sorted order.
+    /// ```
+    /// let b = gaugebook::MimeBundle::text("x").with("image/svg+xml", "<svg/>");
+    /// assert_eq!(b.mime_types().collect::<Vec<_>>(), ["image/svg+xml", "text/plain"]);
+    /// ```
     pub fn mime_types(&self) -> impl Iterator<Item = &str> {
         self.data.keys().map(String::as_str)
     }

@@ -28,6 +28,13 @@ pub trait KernelOutput: Send + Sync {
     fn display(&self, bundle: MimeBundle, display_id: Option<String>, update: bool);
     /// Clears the cell's output (`wait`: only when the next output arrives).
     fn clear_output(&self, wait: bool);
+    /// Asks the client for a line of input (an `input_request` on the stdin channel) and waits
+    /// for the answer; an error says why there is none (the client does not allow input, the
+    /// cell was interrupted). The default has no client to ask.
+    fn input(&self, prompt: &str, password: bool) -> Result<String, String> {
+        let _ = (prompt, password);
+        Err("this kernel front-end cannot ask for input".to_string())
+    }
 }
 
 /// A failed cell, as Jupyter shows it.
@@ -78,6 +85,14 @@ pub struct CompletionSet {
 }
 
 /// Stops the running cell; callable from any thread.
+/// ```
+/// use std::sync::{Arc, atomic::{AtomicBool, Ordering}};
+/// let flag = Arc::new(AtomicBool::new(false));
+/// let f = flag.clone();
+/// let stop: gaugebook::Interrupter = Arc::new(move || f.store(true, Ordering::SeqCst));
+/// std::thread::spawn(move || stop()).join().unwrap();
+/// assert!(flag.load(Ordering::SeqCst));
+/// ```
 pub type Interrupter = Arc<dyn Fn() + Send + Sync>;
 
 /// A language engine the kernel can serve. It lives on the kernel's execution thread, so it need

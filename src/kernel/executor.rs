@@ -19,6 +19,8 @@ pub(crate) enum Job {
         code: String,
         origin: String,
         parent: Value,
+        /// The requesting client's routing identities and whether it takes input requests.
+        stdin: Option<Vec<Vec<u8>>>,
         silent: bool,
         reply: oneshot::Sender<Result<Option<MimeBundle>, CellError>>,
     },
@@ -38,11 +40,25 @@ pub(crate) enum Job {
     },
 }
 
+/// A cell's question for the client, for the stdin task to send as an `input_request`.
+pub(crate) struct InputRequest {
+    pub parent: Value,
+    pub identities: Vec<Vec<u8>>,
+    pub prompt: String,
+    pub password: bool,
+    pub answer: mpsc::Sender<String>,
+}
+
 /// The output sink a cell writes to: IOPub messages whose parent is the running request.
 pub(crate) struct CellOutput {
     iopub: Iopub,
     parent: Mutex<Value>,
     silent: AtomicBool,
+    /// Where the running cell's input requests go, when its client allows input.
+    stdin: Mutex<Option<Vec<Vec<u8>>>>,
+    ask: tokio::sync::mpsc::UnboundedSender<InputRequest>,
+    /// Set by an interrupt, so a cell waiting for input stops waiting.
+    interrupted: AtomicBool,
 }
 
 impl CellOutput {
@@ -90,6 +106,40 @@ impl KernelOutput for CellOutput {
     fn clear_output(&self, wait: bool) {
         self.send("clear_output", json!({"wait": wait}));
     }
+
+    fn input(&self, prompt: &str, password: bool) -> Result<String, String> {
+        let identities = self
+            .stdin
+            .lock()
+            .unwrap_or_else(|p| p.into_inner())
+            .clone()
+            .ok_or("the client does not accept input requests (allow_stdin is false)")?;
+        let (tx, rx) = mpsc::channel();
+        self.ask
+            .send(InputRequest {
+                parent: self.parent(),
+                identities,
+                prompt: prompt.to_string(),
+                password,
+                answer: tx,
+            })
+            .map_err(|_| "the kernel's stdin channel has stopped".to_string())?;
+        // Wait for the answer, but look at the interrupt flag often: an interrupt must end
+        // the wait within half a second (issue 4). 20 ms is our polling choice.
+        loop {
+            match rx.recv_timeout(std::time::Duration::from_millis(20)) {
+                Ok(line) => return Ok(line),
+                Err(mpsc::RecvTimeoutError::Disconnected) => {
+                    return Err("the kernel's stdin channel has stopped".to_string());
+                }
+                Err(mpsc::RecvTimeoutError::Timeout) => {
+                    if self.interrupted.swap(false, Ordering::SeqCst) {
+                        return Err("interrupted while waiting for input".to_string());
+                    }
+                }
+            }
+        }
+    }
 }
 
 /// A MIME bundle as the `data` object of a display message.
@@ -112,6 +162,7 @@ pub(crate) struct Executor {
     pub jobs: mpsc::Sender<Job>,
     interrupter: Arc<OnceLock<Interrupter>>,
     running: Arc<AtomicBool>,
+    output: Arc<CellOutput>,
 }
 
 impl Executor {
@@ -121,6 +172,7 @@ impl Executor {
     pub fn start<B, F>(
         make: F,
         iopub: Iopub,
+        ask: tokio::sync::mpsc::UnboundedSender<InputRequest>,
     ) -> Result<(Executor, oneshot::Receiver<KernelError>), KernelError>
     where
         B: Backend + 'static,
@@ -135,7 +187,11 @@ impl Executor {
             iopub,
             parent: Mutex::new(json!({})),
             silent: AtomicBool::new(false),
+            stdin: Mutex::new(None),
+            ask,
+            interrupted: AtomicBool::new(false),
         });
+        let kept = output.clone();
         std::thread::Builder::new()
             .name("gaugebook-exec".into())
             .spawn(move || {
@@ -156,6 +212,7 @@ impl Executor {
                 jobs: job_tx,
                 interrupter,
                 running,
+                output: kept,
             },
             fail_rx,
         ))
@@ -167,6 +224,7 @@ impl Executor {
         if self.running.load(Ordering::SeqCst)
             && let Some(stop) = self.interrupter.get()
         {
+            self.output.interrupted.store(true, Ordering::SeqCst);
             stop();
         }
     }
@@ -184,10 +242,13 @@ fn serve<B: Backend>(
                 code,
                 origin,
                 parent,
+                stdin,
                 silent,
                 reply,
             } => {
                 *output.parent.lock().unwrap_or_else(|p| p.into_inner()) = parent;
+                *output.stdin.lock().unwrap_or_else(|p| p.into_inner()) = stdin;
+                output.interrupted.store(false, Ordering::SeqCst);
                 output.silent.store(silent, Ordering::Relaxed);
                 running.store(true, Ordering::SeqCst);
                 let result = catch_unwind(AssertUnwindSafe(|| backend.execute(&code, &origin)));

@@ -3,7 +3,7 @@
 //! run on the execution thread.
 
 use std::sync::atomic::{AtomicBool, Ordering};
-use std::sync::{Arc, Mutex};
+use std::sync::{Arc, Mutex, mpsc};
 use std::time::Duration;
 
 use serde_json::{Value, json};
@@ -104,7 +104,8 @@ where
         session: uuid::Uuid::new_v4().to_string(),
     };
     let iopub = iopub::start(iopub_socket, signer.clone(), maker.clone());
-    let (exec, mut failed) = Executor::start(make, iopub.clone())?;
+    let (ask_tx, ask_rx) = tokio::sync::mpsc::unbounded_channel();
+    let (exec, mut failed) = Executor::start(make, iopub.clone(), ask_tx)?;
     iopub.status(&json!({}), "starting");
     let kernel = Arc::new(Kernel {
         signer,
@@ -120,7 +121,7 @@ where
     });
 
     tokio::spawn(heartbeat(hb));
-    tokio::spawn(drain_stdin(stdin, kernel.clone()));
+    tokio::spawn(serve_stdin(stdin, ask_rx, kernel.clone()));
     tokio::spawn(serve_router(control, kernel.clone(), Channel::Control));
     tokio::spawn(serve_router(shell, kernel.clone(), Channel::Shell));
     tokio::spawn(sigint(signals, kernel.clone()));
@@ -153,17 +154,49 @@ async fn heartbeat(mut hb: RepSocket) {
     }
 }
 
-/// The stdin channel: scripts do not ask for input, so replies from the client are checked and
-/// dropped.
-async fn drain_stdin(mut stdin: RouterSocket, kernel: Arc<Kernel>) {
+/// The stdin channel: sends a cell's `input_request` to the client that ran it and hands the
+/// `input_reply` back to the waiting cell. Replies nobody waits for (after an interrupt) and
+/// badly signed messages are dropped.
+async fn serve_stdin(
+    mut stdin: RouterSocket,
+    mut asks: tokio::sync::mpsc::UnboundedReceiver<super::executor::InputRequest>,
+    kernel: Arc<Kernel>,
+) {
+    let mut waiting: Option<mpsc::Sender<String>> = None;
     loop {
-        match stdin.recv().await {
-            Ok(z) => {
-                if let Err(r) = kernel.decode(&z) {
-                    eprintln!("gaugebook kernel: dropped stdin message: {r}");
+        tokio::select! {
+            ask = asks.recv() => {
+                let Some(ask) = ask else { return };
+                let request = kernel.maker.child(
+                    &ask.parent,
+                    ask.identities,
+                    "input_request",
+                    json!({"prompt": ask.prompt, "password": ask.password}),
+                );
+                let frames = kernel.signer.lock().unwrap_or_else(|p| p.into_inner()).encode(&request);
+                match wire::to_zmq(frames) {
+                    Some(z) => match stdin.send(z).await {
+                        Ok(()) => waiting = Some(ask.answer),
+                        // Dropping the answer channel tells the cell there will be no reply.
+                        Err(e) => eprintln!("gaugebook kernel: input request send failed: {e}"),
+                    },
+                    None => eprintln!("gaugebook kernel: input request had no frames"),
                 }
             }
-            Err(_) => tokio::time::sleep(Duration::from_millis(10)).await,
+            z = stdin.recv() => match z {
+                Ok(z) => match kernel.decode(&z) {
+                    Ok(m) if m.msg_type() == "input_reply" => {
+                        let value = m.content.get("value").and_then(Value::as_str).unwrap_or("");
+                        match waiting.take() {
+                            Some(tx) => { let _ = tx.send(value.to_string()); }
+                            None => eprintln!("gaugebook kernel: dropped an input reply nobody waits for"),
+                        }
+                    }
+                    Ok(m) => eprintln!("gaugebook kernel: ignored stdin message {:?}", m.msg_type()),
+                    Err(r) => eprintln!("gaugebook kernel: dropped stdin message: {r}"),
+                },
+                Err(_) => tokio::time::sleep(Duration::from_millis(10)).await,
+            },
         }
     }
 }
@@ -186,6 +219,11 @@ async fn sigint(_: (), kernel: Arc<Kernel>) {
 }
 
 async fn serve_router(mut socket: RouterSocket, kernel: Arc<Kernel>, channel: Channel) {
+    let name = if channel == Channel::Shell {
+        "shell"
+    } else {
+        "control"
+    };
     loop {
         let z = match socket.recv().await {
             Ok(z) => z,
@@ -198,32 +236,85 @@ async fn serve_router(mut socket: RouterSocket, kernel: Arc<Kernel>, channel: Ch
         let msg = match kernel.decode(&z) {
             Ok(m) => m,
             Err(r) => {
-                let name = if channel == Channel::Shell {
-                    "shell"
-                } else {
-                    "control"
-                };
                 eprintln!("gaugebook kernel: dropped {name} message: {r}");
                 continue;
             }
         };
         kernel.iopub.status(&msg.header, "busy");
         let reply = kernel.handle(&msg, channel).await;
+        // The queue is drained before the failed cell's reply goes out: a client that waits
+        // for that reply (or for idle) and then sends the next cell must see it run.
+        if reply.as_ref().is_some_and(|r| stops_queue(&msg, r)) {
+            abort_queued(&mut socket, &kernel, channel).await;
+        }
         if let Some(reply) = reply {
-            let frames = kernel
-                .signer
-                .lock()
-                .unwrap_or_else(|p| p.into_inner())
-                .encode(&reply);
-            if let Some(z) = wire::to_zmq(frames)
-                && let Err(e) = socket.send(z).await
-            {
-                eprintln!("gaugebook kernel: reply send failed: {e}");
-            }
+            send(&mut socket, &kernel, &reply).await;
         }
         kernel.iopub.status(&msg.header, "idle");
         if kernel.stopping.load(Ordering::SeqCst) {
             kernel.shutdown.notify_one();
+            return;
+        }
+    }
+}
+
+async fn send(socket: &mut RouterSocket, kernel: &Kernel, reply: &Message) {
+    let frames = kernel
+        .signer
+        .lock()
+        .unwrap_or_else(|p| p.into_inner())
+        .encode(reply);
+    if let Some(z) = wire::to_zmq(frames)
+        && let Err(e) = socket.send(z).await
+    {
+        eprintln!("gaugebook kernel: reply send failed: {e}");
+    }
+}
+
+/// Whether a reply ends the run of queued cells: a failed execute_request that did not ask
+/// `stop_on_error: false` (the messaging specification's default is true) and was not silent.
+fn stops_queue(msg: &Message, reply: &Message) -> bool {
+    let c = &msg.content;
+    msg.msg_type() == "execute_request"
+        && reply.content.get("status").and_then(Value::as_str) == Some("error")
+        && c.get("stop_on_error")
+            .and_then(Value::as_bool)
+            .unwrap_or(true)
+        && !c.get("silent").and_then(Value::as_bool).unwrap_or(false)
+}
+
+/// After a failed cell, before its reply, the execute_requests already waiting on the socket
+/// are answered `aborted` without running (what "Run all" expects: later cells must not run on a broken
+/// state); other requests waiting there are served as usual. A request that arrives after the
+/// queue ran dry runs normally.
+async fn abort_queued(socket: &mut RouterSocket, kernel: &Kernel, channel: Channel) {
+    loop {
+        // A zero timeout still polls the receive once, so it takes exactly what is already
+        // buffered; the zeromq receive is a stream read, safe to drop when nothing is there.
+        let z = match tokio::time::timeout(Duration::ZERO, socket.recv()).await {
+            Ok(Ok(z)) => z,
+            Ok(Err(_)) | Err(_) => return,
+        };
+        let Ok(msg) = kernel.decode(&z) else {
+            eprintln!("gaugebook kernel: dropped a queued message with a bad signature");
+            continue;
+        };
+        kernel.iopub.status(&msg.header, "busy");
+        let reply = if msg.msg_type() == "execute_request" {
+            let count = kernel.state().count;
+            Some(kernel.reply(
+                &msg,
+                "execute_reply",
+                json!({"status": "aborted", "execution_count": count}),
+            ))
+        } else {
+            Box::pin(kernel.handle(&msg, channel)).await
+        };
+        if let Some(reply) = reply {
+            send(socket, kernel, &reply).await;
+        }
+        kernel.iopub.status(&msg.header, "idle");
+        if kernel.stopping.load(Ordering::SeqCst) {
             return;
         }
     }
@@ -421,10 +512,16 @@ impl Kernel {
                 let origin = format!("cell[{count}]");
                 let parent = msg.header.clone();
                 let code2 = code.clone();
+                let allow_stdin = c
+                    .get("allow_stdin")
+                    .and_then(Value::as_bool)
+                    .unwrap_or(false);
+                let stdin = allow_stdin.then(|| msg.identities.clone());
                 self.ask(|reply| Job::Execute {
                     code: code2,
                     origin,
                     parent,
+                    stdin,
                     silent,
                     reply,
                 })
@@ -506,6 +603,7 @@ impl Kernel {
                     code,
                     origin: format!("user_expressions[{name}]"),
                     parent,
+                    stdin: None,
                     silent: true,
                     reply,
                 })

@@ -29,6 +29,9 @@ impl OutputSink for Forward {
     fn clear_output(&self, wait: bool) {
         self.0.clear_output(wait);
     }
+    fn input(&self, prompt: &str, password: bool) -> Result<String, String> {
+        self.0.input(prompt, password)
+    }
 }
 
 /// A script error as Jupyter shows it: the kind as ename, the message as evalue, and the

@@ -60,12 +60,17 @@ impl BridgeWiring {
 /// Gauges at sites on a spring element, wired into bridges, with the element's rated load.
 ///
 /// Temperature: each gauge's relative resistance change is
-/// x = (F(T)/F)·(1 + β_E·ΔT)⁻¹·ΔR/R(ε_a, ε_t) + F·ε_thermal(T) + ΔR/R(Δα·ΔT, Δα·ΔT), with F(T)
-/// the gauge factor's drift, β_E the material's modulus coefficient (strain ∝ 1/E), ε_thermal
-/// the gauge's thermal-output polynomial and Δα the mismatch between the element's expansion and
-/// the thermal output's reference material, ΔT from the layout's reference temperature (20 °C
-/// unless set; ISO 1:2016 standard reference temperature). Series gauges in an arm add their
-/// resistances. Design estimates must be proven by test.
+/// x = (F(T)/F)·(1 + β_E·ΔT)⁻¹·ΔR/R(ε_a, ε_t under the expanded load) + F·ε_thermal(T) +
+/// ΔR/R(Δα·ΔT, Δα·ΔT), with F(T) the gauge factor's drift, β_E the material's modulus
+/// coefficient (strain ∝ 1/E), ε_thermal the gauge's thermal-output polynomial and Δα the
+/// mismatch between the element's expansion and the thermal output's reference material, ΔT from
+/// the layout's reference temperature (20 °C unless set; ISO 1:2016 standard reference
+/// temperature). The element's own expansion α·ΔT scales every length by s = 1 + α·ΔT, so the
+/// nominal stress of a force (∝ F/length²) falls as s⁻² and that of a moment (∝ M/length³) as
+/// s⁻³ (dimensional analysis of the closed forms); the strain is taken under the wrench with
+/// its forces scaled by s⁻² and its moments by s⁻³. The span drift of a bridge whose output is
+/// linear in x is therefore TC_F − β_E − 2α for a force and TC_F − β_E − 3α for a moment.
+/// Series gauges in an arm add their resistances. Design estimates must be proven by test.
 ///
 /// ```
 /// use gaugebook::{Arrangement, Cantilever, Gauge, Layout, LoadComponent, Wrench, material};
@@ -433,7 +438,8 @@ impl Layout {
         })?;
         let dt = t.get::<kelvin>() - self.reference.get::<kelvin>();
         let m = self.element.material();
-        let (ea, et) = p.grid_strains(self.element.as_ref(), load)?;
+        let expanded = expanded_load(load, m.expansion().get::<per_kelvin>() * dt);
+        let (ea, et) = p.grid_strains(self.element.as_ref(), &expanded)?;
         let g = &p.gauge;
         let modulus = 1.0 + m.modulus_tc().get::<per_kelvin>() * dt;
         let mech = g.gauge_factor_at(t) / g.gauge_factor() * g.relative_change(ea, et) / modulus;
@@ -587,4 +593,22 @@ impl Layout {
     pub fn primary(&self) -> LoadComponent {
         self.element.primary()
     }
+}
+
+/// The wrench that gives, on the element as it was, the stresses `load` gives on the element
+/// expanded by `strain` (α·ΔT) in every length: forces scale by s⁻², moments by s⁻³, s = 1 +
+/// strain (nominal stress ∝ F/length² and M/length³, dimensional analysis).
+fn expanded_load(load: &Wrench, strain: f64) -> Wrench {
+    if strain == 0.0 {
+        return *load;
+    }
+    let s = 1.0 + strain;
+    LoadComponent::ALL.iter().fold(*load, |w, &c| {
+        let k = if c.is_moment() {
+            s.powi(-3)
+        } else {
+            s.powi(-2)
+        };
+        w.with(c, load.get(c) * k)
+    })
 }

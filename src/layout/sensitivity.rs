@@ -223,7 +223,18 @@ impl Layout {
                 });
             }
         }
-        rows.sort_by(|x, y| y.worst.total_cmp(&x.worst));
+        // Symmetric gauges give errors equal but for round-off: compare at 9 significant
+        // figures of the largest, so that such ties keep the gauges' order (a stable sort)
+        // instead of following the last bits.
+        let top = rows.iter().map(|r| r.worst.abs()).fold(0.0, f64::max);
+        let key = |v: f64| {
+            if top > 0.0 {
+                (v / top * 1e9).round()
+            } else {
+                0.0
+            }
+        };
+        rows.sort_by(|x, y| key(y.worst).total_cmp(&key(x.worst)));
         Ok(SensitivityTable {
             bridge: w.name,
             angle_tolerance: angle,

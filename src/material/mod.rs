@@ -147,8 +147,9 @@ impl Material {
     }
 
     /// Sets the temperature coefficient of Young's modulus, (1/E)·dE/dT (negative for metals).
-    /// The built-in table leaves it at zero because no handbook value is recalled; set it from a
-    /// source before reading a layout's span drift with temperature.
+    /// The built-in table gives the family value of its source where one is recalled (see
+    /// [`materials`]); set the alloy's own from a better source before trusting a layout's span
+    /// drift with temperature.
     ///
     /// ```
     /// use gaugebook::units::TemperatureCoefficient;
@@ -171,10 +172,14 @@ impl Material {
         Ok(self)
     }
 
-    /// The temperature coefficient of Young's modulus (zero unless set).
+    /// The temperature coefficient of Young's modulus, (1/E)·dE/dT (zero unless set or given by
+    /// the table).
     ///
     /// ```
-    /// assert_eq!(gaugebook::material("7075-T6")?.modulus_tc().get::<uom::si::temperature_coefficient::per_kelvin>(), 0.0);
+    /// use uom::si::temperature_coefficient::ppm_per_kelvin;
+    /// // Aluminium alloys: −554 ppm/K (ASME B31.3-2004 Table C-6 family row, from memory).
+    /// assert!((gaugebook::material("7075-T6")?.modulus_tc().get::<ppm_per_kelvin>() + 554.0).abs() < 1.0);
+    /// assert_eq!(gaugebook::material("ti64")?.modulus_tc().get::<ppm_per_kelvin>(), 0.0);
     /// # Ok::<(), gaugebook::PhysicsError>(())
     /// ```
     pub fn modulus_tc(&self) -> TemperatureCoefficient {

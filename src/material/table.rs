@@ -8,14 +8,41 @@
 //! eq. 6-8, from memory), and say so; the non-ferrous alloys without a recalled value have none.
 //! Use the certified values of the metal actually bought for a design; design estimates must be
 //! proven by test.
+//!
+//! The temperature coefficient of Young's modulus, (1/E)·dE/dT, is the slope between the moduli
+//! the source lists at 70 °F and at 200 °F for the alloy's family (ASME B31.3-2004, Appendix C,
+//! Table C-6, modulus of elasticity of metals against temperature, from memory): a family value,
+//! not the alloy's own curve, and good to perhaps ±20 % near room temperature. Where no family
+//! row is recalled (beryllium copper, titanium alloys) the coefficient stays zero and the row's
+//! source says so.
 
 use uom::si::mass_density::kilogram_per_cubic_meter;
 use uom::si::pressure::{gigapascal, megapascal};
-use uom::si::temperature_coefficient::ppm_per_kelvin;
+use uom::si::temperature_coefficient::{per_kelvin, ppm_per_kelvin};
 
 use super::Material;
 use crate::error::PhysicsError;
 use crate::units::{MassDensity, Modulus, Stress, TemperatureCoefficient};
+
+/// Young's modulus of a family at 70 °F and at 200 °F, Msi (ASME B31.3-2004 Table C-6, from
+/// memory), from which the modulus coefficient is the slope.
+#[derive(Clone, Copy)]
+struct ModulusAt70And200F(f64, f64);
+
+/// Carbon and low-alloy steels (the carbon-steel row, C ≤ 0.3 %).
+const CARBON_STEELS: ModulusAt70And200F = ModulusAt70And200F(29.5, 28.8);
+/// Martensitic stainless steels (12Cr, 17Cr).
+const MARTENSITIC_STAINLESS: ModulusAt70And200F = ModulusAt70And200F(29.2, 28.5);
+/// Aluminium and aluminium alloys.
+const ALUMINIUM_ALLOYS: ModulusAt70And200F = ModulusAt70And200F(10.0, 9.6);
+
+impl ModulusAt70And200F {
+    /// (E₂₀₀/E₇₀ − 1)/ΔT with ΔT = 130 °F = 130·5/9 K (a Fahrenheit degree is 5/9 K, NIST SP 811
+    /// (2008) appendix B.8).
+    fn per_kelvin(self) -> f64 {
+        (self.1 / self.0 - 1.0) / (130.0 * 5.0 / 9.0)
+    }
+}
 
 /// One row of the table: values in GPa, –, ppm/K, MPa, MPa, kg/m³, MPa.
 struct Row {
@@ -28,6 +55,7 @@ struct Row {
     ultimate_mpa: f64,
     density: f64,
     fatigue_mpa: Option<f64>,
+    modulus: Option<ModulusAt70And200F>,
     source: &'static str,
 }
 
@@ -43,10 +71,14 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 1310.0,
         density: 7780.0,
         fatigue_mpa: Some(655.0),
+        modulus: Some(MARTENSITIC_STAINLESS),
         source: "E 28.5 Msi, ν 0.27, Fty 170 ksi, Ftu 190 ksi: MMPDS-01 (2003), §2.6.9, \
                  17-4PH bar H900 (from memory); α (21–93 °C) and density 7.78 g/cm³: ASM Handbook \
                  vol. 1, 10th ed. (1990), wrought stainless steels (from memory); fatigue: estimate \
-                 0.5·Su, Shigley's MED 9th ed. eq. 6-8 (from memory)",
+                 0.5·Su, Shigley's MED 9th ed. eq. 6-8 (from memory); \
+                 modulus coefficient: martensitic stainless steels row, 29.2 Msi at 70 °F, \
+                 28.5 Msi at 200 °F, \
+                 ASME B31.3-2004 Table C-6 (from memory)",
     },
     Row {
         name: "17-4 PH H1025",
@@ -58,9 +90,13 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 1069.0,
         density: 7780.0,
         fatigue_mpa: Some(534.0),
+        modulus: Some(MARTENSITIC_STAINLESS),
         source: "E, ν, Fty 145 ksi, Ftu 155 ksi: MMPDS-01 (2003), §2.6.9, 17-4PH H1025 \
                  (from memory); α and density: ASM Handbook vol. 1, 10th ed. (1990) (from memory); \
-                 fatigue: estimate 0.5·Su, Shigley's MED 9th ed. eq. 6-8 (from memory)",
+                 fatigue: estimate 0.5·Su, Shigley's MED 9th ed. eq. 6-8 (from memory); \
+                 modulus coefficient: martensitic stainless steels row, 29.2 Msi at 70 °F, \
+                 28.5 Msi at 200 °F, \
+                 ASME B31.3-2004 Table C-6 (from memory)",
     },
     Row {
         name: "17-4 PH H1150",
@@ -72,9 +108,13 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 931.0,
         density: 7780.0,
         fatigue_mpa: Some(465.0),
+        modulus: Some(MARTENSITIC_STAINLESS),
         source: "E, ν, Fty 105 ksi, Ftu 135 ksi: MMPDS-01 (2003), §2.6.9, 17-4PH H1150 \
                  (from memory); α and density: ASM Handbook vol. 1, 10th ed. (1990) (from memory); \
-                 fatigue: estimate 0.5·Su, Shigley's MED 9th ed. eq. 6-8 (from memory)",
+                 fatigue: estimate 0.5·Su, Shigley's MED 9th ed. eq. 6-8 (from memory); \
+                 modulus coefficient: martensitic stainless steels row, 29.2 Msi at 70 °F, \
+                 28.5 Msi at 200 °F, \
+                 ASME B31.3-2004 Table C-6 (from memory)",
     },
     Row {
         name: "4340 Q&T 1240 MPa",
@@ -86,10 +126,14 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 1241.0,
         density: 7850.0,
         fatigue_mpa: Some(620.0),
+        modulus: Some(CARBON_STEELS),
         source: "E 29.0 Msi, ν 0.32, Ftu 180 ksi / Fty 163 ksi heat-treated low-alloy steel: \
                  MMPDS-01 (2003), §2.3.1 (from memory); α and density: ASM Handbook vol. 1, 10th \
                  ed. (1990), carbon and low-alloy steels (from memory); fatigue: estimate 0.5·Su, \
-                 Shigley's MED 9th ed. eq. 6-8 (from memory)",
+                 Shigley's MED 9th ed. eq. 6-8 (from memory); \
+                 modulus coefficient: carbon-steel row used for the family, 29.5 Msi at 70 °F, \
+                 28.8 Msi at 200 °F, \
+                 ASME B31.3-2004 Table C-6 (from memory)",
     },
     Row {
         name: "H13 tool steel 48 HRC",
@@ -101,9 +145,13 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 1790.0,
         density: 7800.0,
         fatigue_mpa: Some(700.0),
+        modulus: Some(CARBON_STEELS),
         source: "E, ν, α (20–100 °C), density, typical tensile properties near 48 HRC: ASM \
                  Handbook vol. 1, 10th ed. (1990), tool materials (from memory); fatigue: estimate \
-                 capped at 700 MPa above Su = 1400 MPa, Shigley's MED 9th ed. eq. 6-8 (from memory)",
+                 capped at 700 MPa above Su = 1400 MPa, Shigley's MED 9th ed. eq. 6-8 (from memory); \
+                 modulus coefficient: carbon-steel row used for the family, 29.5 Msi at 70 °F, \
+                 28.8 Msi at 200 °F, \
+                 ASME B31.3-2004 Table C-6 (from memory)",
     },
     Row {
         name: "2024-T351",
@@ -115,9 +163,13 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 469.0,
         density: 2780.0,
         fatigue_mpa: Some(138.0),
+        modulus: Some(ALUMINIUM_ALLOYS),
         source: "typical E, ν, α (20–100 °C), yield, ultimate, density and fatigue strength at \
                  5×10⁸ cycles (R. R. Moore rotating beam): ASM Handbook vol. 2, 10th ed. (1990), \
-                 properties of wrought aluminum alloys (from memory)",
+                 properties of wrought aluminum alloys (from memory); \
+                 modulus coefficient: aluminium alloys row, \
+                 10.0 Msi at 70 °F, 9.6 Msi at 200 °F, \
+                 ASME B31.3-2004 Table C-6 (from memory)",
     },
     Row {
         name: "7075-T6",
@@ -129,9 +181,13 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 572.0,
         density: 2810.0,
         fatigue_mpa: Some(159.0),
+        modulus: Some(ALUMINIUM_ALLOYS),
         source: "typical E, ν, α (20–100 °C), yield, ultimate, density and fatigue strength at \
                  5×10⁸ cycles (R. R. Moore rotating beam): ASM Handbook vol. 2, 10th ed. (1990), \
-                 properties of wrought aluminum alloys (from memory)",
+                 properties of wrought aluminum alloys (from memory); \
+                 modulus coefficient: aluminium alloys row, \
+                 10.0 Msi at 70 °F, 9.6 Msi at 200 °F, \
+                 ASME B31.3-2004 Table C-6 (from memory)",
     },
     Row {
         name: "C17200 TF00",
@@ -143,9 +199,11 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 1240.0,
         density: 8250.0,
         fatigue_mpa: None,
+        modulus: None,
         source: "E 18.5 Msi, ν, α (20–200 °C), density 0.298 lb/in³, typical strengths for the \
                  precipitation-hardened temper: ASM Handbook vol. 2, 10th ed. (1990), properties of \
-                 wrought copper alloys (from memory); no fatigue strength recalled",
+                 wrought copper alloys (from memory); no fatigue strength recalled; \
+                 no modulus temperature coefficient recalled (left at zero)",
     },
     Row {
         name: "Ti-6Al-4V annealed",
@@ -157,9 +215,11 @@ const ROWS: &[Row] = &[
         ultimate_mpa: 950.0,
         density: 4430.0,
         fatigue_mpa: Some(510.0),
+        modulus: None,
         source: "typical E, ν, α (20–100 °C), yield, ultimate, density and unnotched fatigue \
                  strength at 10⁷ cycles: ASM Handbook vol. 2, 10th ed. (1990), titanium alloys \
-                 (from memory)",
+                 (from memory); \
+                 no modulus temperature coefficient recalled (left at zero)",
     },
 ];
 
@@ -181,6 +241,10 @@ fn build(row: &Row) -> Result<Material, PhysicsError> {
         MassDensity::new::<kilogram_per_cubic_meter>(row.density),
     )?
     .with_source(row.source);
+    let m = match row.modulus {
+        Some(e) => m.with_modulus_tc(TemperatureCoefficient::new::<per_kelvin>(e.per_kelvin()))?,
+        None => m,
+    };
     match row.fatigue_mpa {
         Some(s) => m.with_fatigue_strength(Stress::new::<megapascal>(s)),
         None => Ok(m),
@@ -242,6 +306,27 @@ mod tests {
         keys.sort();
         keys.dedup();
         assert_eq!(keys.len(), n, "a name or alias is used twice");
+    }
+
+    #[test]
+    fn modulus_coefficients_are_the_slopes_of_the_quoted_moduli() {
+        // The rows' text quotes the two moduli; the coefficient is their slope over 130 °F.
+        let m = material("7075-T6").unwrap();
+        let expected = (9.6 / 10.0 - 1.0) / (130.0 / 1.8);
+        assert!((m.modulus_tc().get::<per_kelvin>() - expected).abs() < 1e-12);
+        assert!(m.source().contains("10.0 Msi at 70 °F, 9.6 Msi at 200 °F"));
+        let s = material("17-4 PH H1025").unwrap();
+        assert!((s.modulus_tc().get::<ppm_per_kelvin>() - (-332.0)).abs() < 0.5);
+        // Metals soften as they warm: every recalled coefficient is negative, and aluminium's
+        // is the steeper (common practice).
+        for r in ROWS {
+            let tc = build(r).unwrap().modulus_tc().get::<per_kelvin>();
+            match r.modulus {
+                Some(_) => assert!(tc < 0.0, "{}", r.name),
+                None => assert_eq!(tc, 0.0, "{}", r.name),
+            }
+        }
+        assert!(m.modulus_tc() < s.modulus_tc());
     }
 
     #[test]

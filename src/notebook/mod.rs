@@ -9,17 +9,20 @@
 //! | `provenance.rs` | [`Provenance`]: versions and input-file SHA-256 in the metadata |
 //! | `compare.rs`    | number-aware text comparison |
 //! | `verify.rs`     | [`verify_notebook`] and its [`VerifyReport`] |
+//! | `html.rs`       | [`Notebook::to_html_section`] and [`html_page`]: a static report page |
 //! | `error.rs`      | [`NotebookError`] |
 
 mod compare;
 mod error;
 mod format;
+mod html;
 mod provenance;
 mod run;
 mod verify;
 
 pub use error::NotebookError;
 pub use format::{Cell, CellKind, Notebook, Output};
+pub use html::html_page;
 pub use provenance::{Provenance, file_hash, rhai_version};
 pub use run::{RunOptions, run_notebook};
 pub use verify::{Drift, DriftKind, NumberChange, VerifyOptions, VerifyReport, verify_notebook};

@@ -349,3 +349,29 @@ impl Plot {
         .with_panel(panel))
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn load_prefix_follows_magnitude() {
+        // SI prefixes k = 10³, M = 10⁶ (SI Brochure 9th ed., Table 7, from memory).
+        assert_eq!(load_axis_for(LoadKind::Force, 9_999.0).1.unit, "N");
+        assert_eq!(
+            load_axis_for(LoadKind::Force, 10_000.0),
+            (1e-3, Axis::new("load", "kN"))
+        );
+        assert_eq!(load_axis_for(LoadKind::Torque, 2e7).1.unit, "MN·m");
+    }
+
+    #[test]
+    fn ratio_and_strain_indications_are_shown_with_prefixes() {
+        let run = CalibrationRun::force_in_output_ratio();
+        assert_eq!(indication_unit(&run), (1e3, "mV/V".to_string()));
+        let run = CalibrationRun::new(LoadKind::Torque, "m/m");
+        assert_eq!(indication_unit(&run), (1e6, "µε".to_string()));
+        let run = CalibrationRun::new(LoadKind::Force, "counts");
+        assert_eq!(indication_unit(&run), (1.0, "counts".to_string()));
+    }
+}

@@ -38,6 +38,14 @@ pub struct Column {
 
 impl Column {
     /// A column from values written in `unit`; converted to SI in place (no copy).
+    /// ```
+    /// use gaugebook::script::Column;
+    /// let e = Column::new(vec![0.0, 500.0, 1000.0], "ue")?;
+    /// assert_eq!(e.kind(), gaugebook::Kind::Strain);
+    /// assert!((e.data()[2] - 1e-3).abs() < 1e-15);
+    /// assert!(Column::new(vec![1.0], "furlong").is_err());
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn new(mut values: Vec<f64>, unit: &str) -> Result<Column, UnitError> {
         let u = Unit::parse(unit)?;
         if u.factor() != 1.0 || u.offset() != 0.0 {
@@ -55,6 +63,17 @@ impl Column {
 
     /// A column from SI values; `unit` (if any) must have the same dimension and kind, else it
     /// is dropped and the column shows in SI.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// use std::sync::Arc;
+    /// use gaugebook::{Kind, Unit};
+    /// let kn = Arc::new(Unit::parse("kN")?);
+    /// let c = Column::from_si(Arc::new(vec![2000.0]), kn.dimension(), Kind::Plain, Some(kn.clone()));
+    /// assert_eq!(c.unit().map(|u| u.symbol()), Some("kN"));
+    /// let v = Column::from_si(Arc::new(vec![2.0]), Unit::parse("V")?.dimension(), Kind::Plain, Some(kn));
+    /// assert!(v.unit().is_none()); // kN does not fit volts: shown in SI
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn from_si(
         data: Arc<Vec<f64>>,
         dim: Dimension,
@@ -71,31 +90,63 @@ impl Column {
     }
 
     /// The SI values.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// let c = Column::new(vec![1.5], "kN")?;
+    /// assert_eq!(c.data().as_slice(), &[1500.0]);
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn data(&self) -> &Arc<Vec<f64>> {
         &self.data
     }
 
     /// The dimension.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// let c = Column::new(vec![1.0], "kN")?;
+    /// assert_eq!(c.dimension(), gaugebook::Unit::parse("N")?.dimension());
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn dimension(&self) -> Dimension {
         self.dim
     }
 
     /// The kind.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// assert_eq!(Column::new(vec![2.0], "mV/V")?.kind(), gaugebook::Kind::OutputRatio);
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn kind(&self) -> Kind {
         self.kind
     }
 
     /// The display unit, if any.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// assert_eq!(Column::new(vec![2.0], "MPa")?.unit().map(|u| u.symbol()), Some("MPa"));
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn unit(&self) -> Option<&Unit> {
         self.unit.as_deref()
     }
 
     /// Number of samples.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// assert_eq!(Column::new(vec![1.0, 2.0], "N")?.len(), 2);
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn len(&self) -> usize {
         self.data.len()
     }
 
     /// True when there are no samples.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// assert!(Column::new(Vec::new(), "N")?.is_empty());
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn is_empty(&self) -> bool {
         self.data.is_empty()
     }
@@ -112,6 +163,13 @@ impl Column {
     }
 
     /// The values expressed in `unit`.
+    /// ```
+    /// use gaugebook::script::Column;
+    /// let c = Column::new(vec![1.0, 2.5], "kN")?;
+    /// assert_eq!(c.values_in("N")?, vec![1000.0, 2500.0]);
+    /// assert!(c.values_in("V").is_err()); // not a force
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
     pub fn values_in(&self, unit: &str) -> Result<Vec<f64>, UnitError> {
         let u = Unit::parse(unit)?;
         self.rep().value_in(unit)?;
@@ -163,13 +221,21 @@ impl Column {
         }
     }
 
+    /// A column with `meta`'s dimension, kind and display unit. A result with no display unit
+    /// (a product or quotient: `strain * E`) takes the SI unit its largest value would print
+    /// in (`MPa`), so that it converts, compares and labels like a column read with a unit.
     fn with_meta(data: Arc<Vec<f64>>, meta: &Quantity) -> Column {
-        Column::from_si(
-            data,
-            meta.dimension(),
-            meta.kind(),
-            meta.unit().map(|u| Arc::new(u.clone())),
-        )
+        let unit = match meta.unit() {
+            Some(u) => Some(u.clone()),
+            None => {
+                let big = data
+                    .iter()
+                    .filter(|v| v.is_finite())
+                    .fold(0.0f64, |m, v| m.max(v.abs()));
+                Quantity::from_si(big, meta.dimension(), meta.kind()).shown_unit()
+            }
+        };
+        Column::from_si(data, meta.dimension(), meta.kind(), unit.map(Arc::new))
     }
 
     fn display_values(&self, max: usize) -> String {

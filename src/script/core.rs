@@ -353,6 +353,46 @@ pub(crate) fn register(engine: &mut Engine, sink: SinkSlot) {
     )
     .register_into_engine(engine, move |wait: bool| s.get().clear_output(wait));
 
+    for password in [false, true] {
+        let s = sink.clone();
+        let (name, doc) = if password {
+            (
+                "input_password",
+                r#"
+        Like `input(prompt)`, but asks the front-end not to show what is typed (a notebook
+        shows a password field).
+        ```rhai
+        let key = "";
+        try { key = input_password("rig access code? "); } catch { }
+        ```
+    "#,
+            )
+        } else {
+            (
+                "input",
+                r#"
+        Asks the person running the script for one line of text: the notebook shows a field
+        under the cell (when the client allows input), the runner and the prompt read standard
+        input. Where nobody can answer (a headless notebook run, a client without input, the end
+        of standard input) it raises an error, which `try` can catch.
+        ```rhai
+        let who = "(no input here)";
+        try { who = input("operator initials? "); } catch { }
+        print(`rig operator: ${who}`);
+        ```
+    "#,
+            )
+        };
+        func(name, &["prompt: String"], "String", doc).register_into_engine(
+            engine,
+            move |prompt: &str| -> ScriptResult<String> {
+                s.get()
+                    .input(prompt, password)
+                    .map_err(|why| fault("InputError", format!("no input: {why}")))
+            },
+        );
+    }
+
     let s = sink;
     func(
         "eprint",

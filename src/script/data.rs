@@ -19,13 +19,19 @@ use super::bind::{
     Options, Record, ScriptResult, Values, fault, func, number, shaped, type_of, values,
 };
 use super::column::Column;
-use crate::units::{Quantity, Unit};
-use crate::{
-    Arrangement, Calibration, CalibrationModel, Channel, DataError, ExportOptions, Gap, LogFormat,
-    LogOptions, MimeBundle, SkippedRow, TemperatureCompensation, TimeColumn, ToMime,
-    compensate_temperature, html_escape, ratio_to_strain, read_log, remove_drift, window_by_time,
-    write_columns, write_text_atomic, zero_of,
+use crate::units::{
+    ElectricPotential, ElectricalResistance, Quantity, TemperatureCoefficient, Unit,
 };
+use crate::{
+    AdcScale, Arrangement, Calibration, CalibrationModel, Channel, DataError, ExportOptions, Gap,
+    Gauge, LeadWire, LeadWires, LogFormat, LogOptions, MimeBundle, OutputRatio, QuarterLeads,
+    QuarterWiring, SkippedRow, SupplyLeads, SupplyWiring, TemperatureCompensation, TimeColumn,
+    ToMime, compensate_temperature, correct_lead_wires, html_escape, ratio_to_strain, read_log,
+    remove_drift, window_by_time, write_columns, write_text_atomic, zero_of,
+};
+use uom::si::electric_potential::volt;
+use uom::si::electrical_resistance::ohm;
+use uom::si::temperature_coefficient::per_kelvin;
 
 impl From<DataError> for Box<EvalAltResult> {
     fn from(e: DataError) -> Self {
@@ -519,7 +525,127 @@ fn window(times: &[f64], w: &Dynamic, what: &str) -> ScriptResult<std::ops::Rang
     Ok(window_by_time(times, t0, t1))
 }
 
-fn to_strain(x: Dynamic, name: &str, gf: Dynamic, nu: Option<f64>) -> ScriptResult<Dynamic> {
+/// A converter's scale from an options map: `#{ bits, range, gain, excitation }` (a bipolar
+/// converter behind an amplifier) or `#{ full_scale_counts, full_scale }`.
+fn adc_arg(v: &Dynamic, func: &str) -> ScriptResult<AdcScale> {
+    let what = format!("the `adc` of {func}");
+    let map = v.read_lock::<Map>().ok_or_else(|| {
+        fault(
+            "ArgumentError",
+            format!(
+                "{what} must be a map #{{ bits, range, gain, excitation }}, found {}",
+                type_of(v)
+            ),
+        )
+    })?;
+    let o = Options::new(
+        &map,
+        &what,
+        &[
+            "bits",
+            "range",
+            "gain",
+            "excitation",
+            "full_scale_counts",
+            "full_scale",
+        ],
+    )?;
+    if o.has("full_scale_counts") {
+        return Ok(AdcScale::new(
+            o.f64("full_scale_counts")?,
+            OutputRatio::new(o.quantity("full_scale", "V/V")?.si()),
+        )?);
+    }
+    let bits = o.f64("bits")?;
+    if bits.fract() != 0.0 || !(2.0..=32.0).contains(&bits) {
+        return Err(fault(
+            "ArgumentError",
+            format!(
+                "key `bits` in {what} must be a whole number of bits from 2 to 32, found {bits}"
+            ),
+        ));
+    }
+    let volts = |k: &str| -> ScriptResult<ElectricPotential> {
+        Ok(ElectricPotential::new::<volt>(o.quantity(k, "V")?.si()))
+    };
+    Ok(AdcScale::from_range(
+        bits as u32,
+        volts("range")?,
+        o.opt_f64("gain")?.unwrap_or(1.0),
+        volts("excitation")?,
+    )?)
+}
+
+/// Lead wires from an options map: `#{ wiring: "two-wire" | "three-wire", lead, r0 }` for a
+/// quarter bridge (r0 the gauge's resistance), `#{ wiring: "four-wire" | "six-wire", lead,
+/// bridge_resistance }` for a complete bridge; `lead` is one lead's resistance, `lead_tc` its
+/// temperature coefficient (default copper).
+fn leads_arg(v: &Dynamic, gf: f64, func: &str) -> ScriptResult<LeadWires> {
+    let what = format!("the `leads` of {func}");
+    let map = v.read_lock::<Map>().ok_or_else(|| {
+        fault(
+            "ArgumentError",
+            format!(
+                "{what} must be a map #{{ wiring, lead, ... }}, found {}",
+                type_of(v)
+            ),
+        )
+    })?;
+    let o = Options::new(
+        &map,
+        &what,
+        &["wiring", "lead", "lead_tc", "r0", "bridge_resistance"],
+    )?;
+    let ohms = |k: &str| -> ScriptResult<ElectricalResistance> {
+        Ok(ElectricalResistance::new::<ohm>(o.quantity(k, "ohm")?.si()))
+    };
+    let r = ohms("lead")?;
+    let lead = match o.opt_quantity("lead_tc", "1/K")? {
+        Some(tc) => LeadWire::new(r, TemperatureCoefficient::new::<per_kelvin>(tc.si()))?,
+        None => LeadWire::copper(r)?,
+    };
+    let wiring = o.string("wiring")?.to_ascii_lowercase();
+    Ok(match wiring.as_str() {
+        "two-wire" | "2-wire" | "three-wire" | "3-wire" => {
+            let w = if wiring.starts_with("two") || wiring.starts_with('2') {
+                QuarterWiring::TwoWire
+            } else {
+                QuarterWiring::ThreeWire
+            };
+            let g = Gauge::new(ohms("r0")?, gf)?;
+            LeadWires::Quarter(QuarterLeads::new(&g, w, lead))
+        }
+        "four-wire" | "4-wire" | "six-wire" | "6-wire" | "remote-sense" => {
+            let w = if wiring.starts_with("four") || wiring.starts_with('4') {
+                SupplyWiring::FourWire
+            } else {
+                SupplyWiring::SixWire
+            };
+            LeadWires::Supply(SupplyLeads::new(ohms("bridge_resistance")?, w, lead)?)
+        }
+        other => {
+            return Err(fault(
+                "ArgumentError",
+                format!(
+                    "key `wiring` in {what} must be \"two-wire\", \"three-wire\", \"four-wire\" \
+                     or \"six-wire\", found \"{other}\""
+                ),
+            ));
+        }
+    })
+}
+
+/// What `to_strain` does besides the arrangement's inverse: counts to ratio first, the
+/// lead-wire correction after.
+#[derive(Default)]
+struct StrainSteps {
+    nu: Option<f64>,
+    adc: Option<AdcScale>,
+    leads: Option<Dynamic>,
+}
+
+fn to_strain(x: Dynamic, name: &str, gf: Dynamic, steps: StrainSteps) -> ScriptResult<Dynamic> {
+    let nu = steps.nu;
     let a = Arrangement::from_name(name)?;
     let gf = number(&gf).ok_or_else(|| {
         fault(
@@ -537,12 +663,27 @@ fn to_strain(x: Dynamic, name: &str, gf: Dynamic, nu: Option<f64>) -> ScriptResu
     }
     // ν is unused by the arrangements that accept no ν; 0.3 keeps it valid.
     let nu = nu.unwrap_or(0.3);
-    let v = values(&x, "bridge output", "V/V")?;
-    let strain = match &v {
-        Values::One(r) => Values::One(ratio_to_strain(&[*r], a, gf, nu)?[0]),
-        Values::Many(r) => Values::Many(Arc::new(ratio_to_strain(r, a, gf, nu)?)),
+    let v = match &steps.adc {
+        None => values(&x, "bridge output", "V/V")?,
+        Some(adc) => match values(&x, "ADC counts", "")? {
+            Values::One(c) => Values::One(adc.ratio(c)),
+            Values::Many(c) => Values::Many(Arc::new(adc.ratios(&c))),
+        },
     };
-    shaped(strain, "µε")
+    let mut strain = match &v {
+        Values::One(r) => vec![ratio_to_strain(&[*r], a, gf, nu)?[0]],
+        Values::Many(r) => ratio_to_strain(r, a, gf, nu)?,
+    };
+    if let Some(l) = &steps.leads {
+        correct_lead_wires(&mut strain, &leads_arg(l, gf, "to_strain()")?);
+    }
+    shaped(
+        match v {
+            Values::One(_) => Values::One(strain[0]),
+            Values::Many(_) => Values::Many(Arc::new(strain)),
+        },
+        "µε",
+    )
 }
 
 fn columns_of(cols: &Map) -> ScriptResult<Vec<(String, Vec<f64>)>> {
@@ -792,7 +933,7 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |x: Dynamic, name: &str, gf: Dynamic| {
-        to_strain(x, name, gf, None)
+        to_strain(x, name, gf, StrainSteps::default())
     });
 
     func(
@@ -806,20 +947,75 @@ pub(crate) fn register(engine: &mut Engine) {
         "Column",
         r#"
         Strain from a bridge output ratio, with options `nu` (Poisson's ratio of the specimen,
-        needed by `"half-poisson"` and `"full-poisson"`).
+        needed by `"half-poisson"` and `"full-poisson"`), `adc` (the input is converter counts:
+        `#{ bits, range, gain, excitation }` for a bipolar converter of 2^(bits−1) counts at
+        +range behind an amplifier, or `#{ full_scale_counts, full_scale }`), and `leads` (the
+        lead-wire desensitisation is corrected: `#{ wiring: "two-wire" | "three-wire", lead, r0 }`
+        for a quarter bridge, `#{ wiring: "four-wire" | "six-wire", lead, bridge_resistance }`
+        for a complete one; `lead` is one lead's resistance). The order is the signal's: counts
+        to ratio, the arrangement's exact inverse, then the correction ×(1 + n·R_L/R) of the
+        bridge module.
         ```rhai
         // Exact inverse of the full Poisson bridge at 500 µε, GF 2.1, ν 0.3.
         let b = bridge("full-poisson", gauge(#{ r0: 350.0 * ohm, gf: 2.1 }), #{ nu: 0.3 });
         let r = b.output(q("500 ue"));
         assert_close(to_strain(r, "full-poisson", 2.1, #{ nu: 0.3 }), q("500 ue"), 1e-12);
+        // Counts of a 24-bit converter, ±2.5 V behind a gain of 128, at 5 V excitation:
+        // 2^23 counts = 3.90625 mV/V; the quarter bridge's 1000 µε at GF 2 is
+        // r = Fε/(4 + 2Fε) = 0.4995004995 mV/V.
+        let counts = 0.4995004995004995 / 3.90625 * 8388608.0;
+        let adc = #{ bits: 24, range: 2.5 * V, gain: 128.0, excitation: 5.0 * V };
+        assert_close(to_strain(counts, "quarter", 2.0, #{ adc: adc }), q("1000 ue"), 1e-12);
+        // Four-wire supply leads of 2 Ω on a 350 Ω full bridge see Rb/(Rb + 2RL) of the ratio.
+        let seen = q("1 mV/V") * 350.0 / 354.0;
+        let leads = #{ wiring: "four-wire", lead: 2.0 * ohm, bridge_resistance: 350.0 * ohm };
+        assert_close(to_strain(seen, "full-bending", 2.0, #{ leads: leads }), q("500 ue"), 1e-12);
         ```
     "#,
     )
     .register_into_engine(
         engine,
         |x: Dynamic, name: &str, gf: Dynamic, options: Map| -> ScriptResult<Dynamic> {
-            let o = Options::new(&options, "to_strain()", &["nu"])?;
-            to_strain(x, name, gf, o.opt_f64("nu")?)
+            let o = Options::new(&options, "to_strain()", &["nu", "adc", "leads"])?;
+            let steps = StrainSteps {
+                nu: o.opt_f64("nu")?,
+                adc: o
+                    .raw("adc")
+                    .map(|a| adc_arg(a, "to_strain()"))
+                    .transpose()?,
+                leads: o.raw("leads").cloned(),
+            };
+            to_strain(x, name, gf, steps)
+        },
+    );
+
+    func(
+        "adc_to_ratio",
+        &["counts: Column", "adc: Map"],
+        "Column",
+        r#"
+        Bridge output ratio (mV/V) from converter counts: `#{ bits, range, gain, excitation }`
+        (r = counts / 2^(bits−1) · range / (gain · excitation), a bipolar converter; `gain`
+        defaults to 1) or `#{ full_scale_counts, full_scale }`. Counts are plain numbers.
+        ```rhai
+        let adc = #{ bits: 24, range: 2.5 * V, gain: 128.0, excitation: 5.0 * V };
+        let r = adc_to_ratio(column([0.0, 4194304.0, -8388608.0], ""), adc);
+        assert_close(r[1], q("1.953125 mV/V"), 1e-12);
+        assert_close(r[2], q("-3.90625 mV/V"), 1e-12);
+        let s = adc_to_ratio(500.0, #{ full_scale_counts: 1000.0, full_scale: 2.0 * mV_per_V });
+        assert_close(s, q("1 mV/V"), 1e-12);
+        ```
+    "#,
+    )
+    .register_into_engine(
+        engine,
+        |x: Dynamic, adc: Dynamic| -> ScriptResult<Dynamic> {
+            let a = adc_arg(&adc, "adc_to_ratio()")?;
+            let r = match values(&x, "ADC counts", "")? {
+                Values::One(c) => Values::One(a.ratio(c)),
+                Values::Many(c) => Values::Many(Arc::new(a.ratios(&c))),
+            };
+            shaped(r, "mV/V")
         },
     );
 

@@ -6,6 +6,13 @@ use rhai::{Engine, NativeCallContext};
 use super::bind::func;
 
 /// One registered function overload and its reference text.
+/// ```
+/// use gaugebook::script::{build_engine, reference_docs};
+/// let docs = reference_docs(&build_engine(&Default::default()));
+/// let q = docs.iter().find(|d| d.name == "q").expect("q is registered");
+/// assert!(q.signature.starts_with("q("));
+/// assert!(!q.examples().is_empty());
+/// ```
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct FnDoc {
     /// The name scripts call.
@@ -18,6 +25,10 @@ pub struct FnDoc {
 
 impl FnDoc {
     /// The first line of the reference text.
+    /// ```
+    /// let d = gaugebook::script::FnDoc { name: "f".into(), signature: "f()".into(), doc: "Does f.\nMore.".into() };
+    /// assert_eq!(d.summary(), "Does f.");
+    /// ```
     pub fn summary(&self) -> &str {
         self.doc.lines().next().unwrap_or("")
     }

@@ -34,9 +34,17 @@ const DOMAINS: &[fn(&mut Engine)] = &[
 ];
 
 /// Environment variable naming the stdlib folder (overrides the built-in search).
+/// ```
+/// assert_eq!(gaugebook::script::STDLIB_ENV, "GAUGEBOOK_STDLIB");
+/// ```
 pub const STDLIB_ENV: &str = "GAUGEBOOK_STDLIB";
 
 /// Options for [`build_engine`]; the same as a session's.
+/// ```
+/// let opts = gaugebook::script::EngineOptions::default();
+/// let engine = gaugebook::script::build_engine(&opts);
+/// assert_eq!(engine.eval::<i64>("1 + 2").unwrap(), 3);
+/// ```
 pub type EngineOptions = SessionOptions;
 
 /// The stdlib folder: `$GAUGEBOOK_STDLIB`, else `stdlib/` beside the running binary, else the

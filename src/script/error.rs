@@ -54,6 +54,16 @@ impl From<PhysicsError> for Box<EvalAltResult> {
 }
 
 /// One outer call site of an error: where the failing function or module was called from.
+/// ```
+/// use gaugebook::script::{Session, SessionOptions};
+/// let mut s = Session::new(SessionOptions::default())?;
+/// s.eval_cell("fn half(x) { x / 2 + 1.0 * V }", "cell[1]")?;
+/// let e = s.eval_cell("half(q(\"4 N\"))", "cell[2]").unwrap_err();
+/// assert_eq!(e.kind, "UnitError");
+/// let f = &e.trace[0];
+/// assert_eq!((f.called.as_str(), f.origin.as_str(), f.line, f.column), ("half", "cell[2]", 1, 1));
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct TraceFrame {
     /// What was called: a function name or `import "path"`.

@@ -85,7 +85,7 @@ mod spring;
 
 pub use column::Column;
 pub use doc::{FnDoc, reference_docs, reference_markdown};
-pub use engine::{EngineOptions, build_engine, default_stdlib_dir};
+pub use engine::{EngineOptions, STDLIB_ENV, build_engine, default_stdlib_dir};
 pub use error::{ScriptError, TraceFrame};
 pub use output::{CaptureSink, OutputEvent, OutputSink, StdSink};
 pub use session::{

@@ -13,6 +13,25 @@ use rhai::{Dynamic, ImmutableString, Map, NativeCallContext};
 use crate::MimeBundle;
 
 /// Receives a running script's output.
+/// A sink of our own, counting printed lines:
+/// ```
+/// use std::sync::{Arc, atomic::{AtomicUsize, Ordering}};
+/// use gaugebook::{MimeBundle, script::{OutputSink, Session, SessionOptions}};
+/// #[derive(Default)]
+/// struct Lines(AtomicUsize);
+/// impl OutputSink for Lines {
+///     fn stdout(&self, text: &str) { self.0.fetch_add(text.matches('\n').count(), Ordering::SeqCst); }
+///     fn stderr(&self, _: &str) {}
+///     fn display(&self, _: MimeBundle, _: Option<String>, _: bool) {}
+///     fn clear_output(&self, _: bool) {}
+/// }
+/// let lines = Arc::new(Lines::default());
+/// let mut s = Session::new(SessionOptions::default())?;
+/// s.set_output(lines.clone());
+/// s.eval_cell("for i in 0..3 { print(i) }", "cell[1]")?;
+/// assert_eq!(lines.0.load(Ordering::SeqCst), 3);
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
 pub trait OutputSink: Send + Sync {
     /// Text printed with `print` (each call ends with a newline).
     fn stdout(&self, text: &str);
@@ -23,9 +42,23 @@ pub trait OutputSink: Send + Sync {
     fn display(&self, bundle: MimeBundle, display_id: Option<String>, update: bool);
     /// `clear_output(wait)`: clear the cell's output (when `wait`, just before the next output).
     fn clear_output(&self, wait: bool);
+    /// `input(prompt)`: one line from the person running the script (without its line end),
+    /// or why there is none. `password` asks the front-end not to echo it. The default has no
+    /// one to ask, so scripts run headless get a clear error instead of waiting forever.
+    fn input(&self, prompt: &str, password: bool) -> Result<String, String> {
+        let _ = (prompt, password);
+        Err("this front-end has no one to ask for input".to_string())
+    }
 }
 
 /// Writes to the process's standard output and error; `display` prints `text/plain`.
+/// ```
+/// use gaugebook::script::{Session, SessionOptions, StdSink};
+/// let mut s = Session::new(SessionOptions::default())?;
+/// s.set_output(std::sync::Arc::new(StdSink));
+/// s.eval_cell("print(q(\"350 ohm\"))", "cell[1]")?;
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
 #[derive(Clone, Copy, Debug, Default)]
 pub struct StdSink;
 
@@ -44,9 +77,31 @@ impl OutputSink for StdSink {
         self.stdout(&text);
     }
     fn clear_output(&self, _wait: bool) {}
+    fn input(&self, prompt: &str, _password: bool) -> Result<String, String> {
+        self.stdout(prompt);
+        let mut line = String::new();
+        match std::io::stdin().read_line(&mut line) {
+            Ok(0) => Err("standard input is at its end".to_string()),
+            Ok(_) => Ok(line.trim_end_matches(['\n', '\r']).to_string()),
+            Err(e) => Err(format!("cannot read standard input: {e}")),
+        }
+    }
 }
 
 /// One event recorded by a [`CaptureSink`].
+/// ```
+/// use std::sync::Arc;
+/// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
+/// let sink = Arc::new(CaptureSink::default());
+/// let mut s = Session::new(SessionOptions::default())?;
+/// s.set_output(sink.clone());
+/// s.eval_cell("print(1); display(q(\"2 V\")); clear_output(true)", "cell[1]")?;
+/// let ev = sink.events();
+/// assert_eq!(ev[0], OutputEvent::Stdout("1\n".into()));
+/// assert!(matches!(&ev[1], OutputEvent::Display { bundle, update: false, .. } if bundle.get("text/plain") == Some("2 V")));
+/// assert_eq!(ev[2], OutputEvent::Clear { wait: true });
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
 #[derive(Clone, Debug, PartialEq)]
 pub enum OutputEvent {
     /// `print` text.
@@ -88,11 +143,31 @@ pub struct CaptureSink {
 
 impl CaptureSink {
     /// Every event so far, in order.
+    /// ```
+    /// use std::sync::Arc;
+    /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
+    /// let sink = Arc::new(CaptureSink::default());
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.set_output(sink.clone());
+    /// s.eval_cell("print(\"a\"); print(\"b\")", "cell[1]")?;
+    /// assert_eq!(sink.events().len(), 2);
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn events(&self) -> Vec<OutputEvent> {
         self.events.lock().map(|e| e.clone()).unwrap_or_default()
     }
 
     /// All `print` text so far, concatenated.
+    /// ```
+    /// use std::sync::Arc;
+    /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
+    /// let sink = Arc::new(CaptureSink::default());
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.set_output(sink.clone());
+    /// s.eval_cell("print(\"a\"); debug(\"d\"); print(\"b\")", "cell[1]")?;
+    /// assert_eq!(sink.stdout_text(), "a\nb\n");
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn stdout_text(&self) -> String {
         self.events()
             .into_iter()
@@ -104,6 +179,16 @@ impl CaptureSink {
     }
 
     /// All `debug` text so far, concatenated.
+    /// ```
+    /// use std::sync::Arc;
+    /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
+    /// let sink = Arc::new(CaptureSink::default());
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.set_output(sink.clone());
+    /// s.eval_cell("debug(\"check\")", "cell[1]")?;
+    /// assert!(sink.stderr_text().contains("check"));
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn stderr_text(&self) -> String {
         self.events()
             .into_iter()

@@ -22,6 +22,13 @@ use crate::MimeBundle;
 /// Where a session looks for modules. Both default to "not set": the stdlib folder is then
 /// found by [`default_stdlib_dir`](super::default_stdlib_dir), and the script folder is the
 /// current directory's files only through absolute paths.
+/// ```
+/// use gaugebook::script::{Session, SessionOptions};
+/// let opts = SessionOptions { stdlib_dir: gaugebook::script::default_stdlib_dir(), script_dir: None };
+/// let mut s = Session::new(opts)?;
+/// s.eval_cell("import \"table\" as t;", "cell[1]")?;
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
 #[derive(Clone, Debug, Default)]
 pub struct SessionOptions {
     /// The stdlib folder (`import "table" as t;` finds `table.rhai` there).
@@ -31,6 +38,14 @@ pub struct SessionOptions {
 }
 
 /// The result of a cell: its last expression's value as a MIME bundle, or `None` for `()`.
+/// ```
+/// use gaugebook::script::{Session, SessionOptions};
+/// let mut s = Session::new(SessionOptions::default())?;
+/// assert_eq!(s.eval_cell("let x = 1;", "cell[1]")?.value, None);
+/// let out = s.eval_cell("x + 1", "cell[2]")?;
+/// assert_eq!(out.value.unwrap().get("text/plain"), Some("2"));
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
 #[derive(Clone, Debug, Default, PartialEq)]
 pub struct CellOutput {
     /// The value's representations (`text/plain` always).
@@ -38,18 +53,45 @@ pub struct CellOutput {
 }
 
 /// Stops the cell that is running in the session it came from; safe to use from any thread.
+/// ```
+/// use gaugebook::script::{Session, SessionOptions};
+/// let mut s = Session::new(SessionOptions::default())?;
+/// let stop = s.interrupt_handle();
+/// let t = std::thread::spawn(move || { std::thread::sleep(std::time::Duration::from_millis(50)); stop.interrupt(); });
+/// let e = s.eval_cell("loop { }", "cell[1]").unwrap_err();
+/// t.join().unwrap();
+/// assert_eq!(e.kind, "Interrupted");
+/// assert_eq!(s.eval_cell("1 + 1", "cell[2]")?.value.unwrap().get("text/plain"), Some("2"));
+/// # Ok::<(), gaugebook::script::ScriptError>(())
+/// ```
 #[derive(Clone, Debug)]
 pub struct InterruptHandle(Arc<AtomicBool>);
 
 impl InterruptHandle {
     /// Asks the running cell to stop; it ends with an `Interrupted` error within microseconds
     /// of its next script operation, and the session stays usable.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// let stop = s.interrupt_handle();
+    /// let t = std::thread::spawn(move || { std::thread::sleep(std::time::Duration::from_millis(20)); stop.interrupt(); });
+    /// assert_eq!(s.eval_cell("while true { }", "cell[1]").unwrap_err().kind, "Interrupted");
+    /// t.join().unwrap();
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn interrupt(&self) {
         self.0.store(true, Ordering::SeqCst);
     }
 }
 
 /// Completion candidates for the text between `start` and `end` (character offsets).
+/// ```
+/// use gaugebook::script::{Session, SessionOptions};
+/// let s = Session::new(SessionOptions::default()).unwrap();
+/// let c = s.completions("q(\"350 koh", 10);
+/// assert_eq!((c.start, c.end), (7, 10));
+/// assert!(c.matches.contains(&"kohm".to_string()));
+/// ```
 #[derive(Clone, Debug, Default, PartialEq, Eq)]
 pub struct Completions {
     /// Start of the text the matches replace (characters, not bytes).
@@ -61,6 +103,10 @@ pub struct Completions {
 }
 
 /// Whether a piece of code can run as it is.
+/// ```
+/// use gaugebook::script::{Completeness, Session};
+/// assert_eq!(Session::is_complete("if x > 1 {"), Completeness::Incomplete);
+/// ```
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub enum Completeness {
     /// It parses.
@@ -110,6 +156,12 @@ struct CellMime(MimeBundle);
 impl Session {
     /// A new session with Gaugebook's engine; output goes to standard output until
     /// [`Session::set_output`] is called.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.eval_cell("print(\"to standard output\")", "cell[1]")?;
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn new(options: SessionOptions) -> Result<Session, ScriptError> {
         let Parts {
             mut engine,
@@ -141,21 +193,55 @@ impl Session {
     }
 
     /// Sends `print`, `debug` and `display` output to `sink` from now on.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// let sink = std::sync::Arc::new(gaugebook::script::CaptureSink::default());
+    /// s.set_output(sink.clone());
+    /// s.eval_cell("print(2.0 * kN); debug(\"checked\")", "cell[1]")?;
+    /// assert_eq!(sink.stdout_text(), "2 kN\n");
+    /// assert!(sink.stderr_text().contains("checked"));
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn set_output(&mut self, sink: Arc<dyn OutputSink>) {
         self.sink.set(sink);
     }
 
     /// A handle that stops the running cell from another thread.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// let h = s.interrupt_handle();
+    /// h.interrupt(); // no cell is running: the next cell starts afresh
+    /// assert!(s.eval_cell("1", "cell[1]").is_ok());
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn interrupt_handle(&self) -> InterruptHandle {
         InterruptHandle(self.interrupt.clone())
     }
 
     /// Defines a constant before a script runs (the runner's `--set NAME=VALUE`).
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.set_constant("capacity", gaugebook::script::rhai::Dynamic::from(gaugebook::Quantity::parse("5 kN").unwrap()));
+    /// let out = s.eval_cell("capacity.to(\"N\")", "cell[1]")?;
+    /// assert_eq!(out.value.unwrap().get("text/plain"), Some("5000 N"));
+    /// assert!(s.eval_cell("capacity = 1;", "cell[2]").is_err());
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn set_constant(&mut self, name: &str, value: Dynamic) {
         self.scope.push_constant_dynamic(name.to_string(), value);
     }
 
     /// The engine, for tools that read its metadata.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// let docs = gaugebook::script::reference_docs(s.engine());
+    /// assert!(docs.iter().any(|d| d.name == "bridge"));
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn engine(&self) -> &Engine {
         &self.engine
     }
@@ -163,6 +249,16 @@ impl Session {
     /// Runs one cell. Variables, functions and top-level imports persist into later cells; the
     /// last expression's value is the result. A failed cell keeps the state from before it
     /// (variables it assigned before failing stay assigned), and its functions are dropped.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.eval_cell("let e = q(\"1000 ue\");", "cell[1]")?;
+    /// let bad = s.eval_cell("e + 1.0 * V", "cell[2]").unwrap_err();
+    /// assert_eq!((bad.kind.as_str(), bad.line, bad.column), ("UnitError", 1, 3));
+    /// let out = s.eval_cell("e * 2", "cell[3]")?;
+    /// assert_eq!(out.value.unwrap().get("text/plain"), Some("2000 µε"));
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn eval_cell(&mut self, code: &str, origin: &str) -> Result<CellOutput, ScriptError> {
         self.interrupt.store(false, Ordering::SeqCst);
         self.sources.add_text(origin, code);
@@ -277,12 +373,28 @@ impl Session {
     /// and properties after `.`, variables, unit constants, members after `module::`, unit
     /// symbols inside the string of `q("…")`, `.to("…")`, `.value("…")`, and module names inside
     /// `import "…"`.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// s.eval_cell("let rated = q(\"2 mV/V\");", "cell[1]")?;
+    /// let c = s.completions("rat", 3);
+    /// assert!(c.matches.contains(&"rated".to_string()));
+    /// assert!(s.completions("q(\"1 kN\").t", 11).matches.contains(&"to".to_string()));
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn completions(&self, code: &str, cursor: usize) -> Completions {
         super::complete::complete(self, code, cursor)
     }
 
     /// The reference text of the function, variable or module under (or just before) the
     /// cursor (a character offset), as markdown.
+    /// ```
+    /// use gaugebook::script::{Session, SessionOptions};
+    /// let mut s = Session::new(SessionOptions::default())?;
+    /// let doc = s.inspect("bridge(", 6).expect("bridge is documented");
+    /// assert!(doc.contains("bridge("));
+    /// # Ok::<(), gaugebook::script::ScriptError>(())
+    /// ```
     pub fn inspect(&self, code: &str, cursor: usize) -> Option<String> {
         super::complete::inspect(self, code, cursor)
     }

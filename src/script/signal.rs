@@ -11,6 +11,7 @@ use rhai::{Array, Dynamic, Engine, INT, Map};
 
 use super::bind::{Options, Record, ScriptResult, Values, fault, func, values};
 use super::column::Column;
+use crate::Kind;
 use crate::units::{Frequency, Quantity};
 use crate::{
     Cycle, FilterBand, HoldCriteria, SnCurve, SosFilter, Summary, find_holds, find_ramps,
@@ -34,6 +35,60 @@ fn quantity_like(like: &Column, si: f64) -> Dynamic {
         Some(u) => Quantity::in_unit(u.from_si(si), Arc::new(u.clone())),
         None => Quantity::from_si(si, like.dimension(), like.kind()),
     })
+}
+
+/// The unit a band or a change of `x` is read in: `x`'s display unit (or, without one, the SI
+/// unit it shows in), except that for temperature readings (°C) a band is a temperature
+/// difference, read in K.
+fn difference_unit(x: &Column) -> String {
+    if x.kind() == Kind::AbsoluteTemperature {
+        return "K".into();
+    }
+    x.unit()
+        .cloned()
+        .or_else(|| Quantity::from_si(1.0, x.dimension(), x.kind()).shown_unit())
+        .map(|u| u.symbol().to_string())
+        .unwrap_or_default()
+}
+
+/// A band or change of `x` (key `key` of `func`'s options) in SI. On a temperature-reading
+/// column it must be a temperature difference: a reading there (`0.2 °C`, which is 273.35 K
+/// from absolute zero) is refused rather than read as a huge band.
+fn difference(x: &Column, v: &Dynamic, key: &str, func: &str) -> ScriptResult<f64> {
+    let what = format!("key `{key}` in options of {func}");
+    if x.kind() == Kind::AbsoluteTemperature
+        && v.read_lock::<Quantity>()
+            .is_some_and(|q| q.kind() == Kind::AbsoluteTemperature)
+    {
+        return Err(fault(
+            "UnitError",
+            format!(
+                "{what} must be a temperature difference on a column of temperature readings \
+                 (write 0.2 K), found {}",
+                super::bind::type_of(v)
+            ),
+        ));
+    }
+    match values(v, &what, &difference_unit(x))? {
+        Values::One(si) => Ok(si),
+        Values::Many(_) => Err(fault(
+            "ArgumentError",
+            format!("{what} must be a single quantity, found a column"),
+        )),
+    }
+}
+
+/// A difference of `x`'s values (a peak-to-peak, a step) as a script quantity: in `x`'s unit,
+/// or in K for a column of temperature readings.
+fn difference_like(x: &Column, si: f64) -> Dynamic {
+    if x.kind() == Kind::AbsoluteTemperature {
+        return Dynamic::from(Quantity::from_si(
+            si,
+            x.dimension(),
+            Kind::TemperatureInterval,
+        ));
+    }
+    quantity_like(x, si)
 }
 
 /// A plain-number column.
@@ -137,17 +192,8 @@ fn hold_criteria(x: &Column, opts: &Map, name: &str, extra: &[&str]) -> ScriptRe
     let mut allowed = vec!["tolerance", "min_samples", "settle_samples"];
     allowed.extend_from_slice(extra);
     let o = Options::new(opts, name, &allowed)?;
-    let unit = x.unit().map(|u| u.symbol().to_string()).unwrap_or_default();
     let tol = match o.raw("tolerance") {
-        Some(v) => match values(v, &format!("key `tolerance` in options of {name}"), &unit)? {
-            Values::One(si) => si,
-            Values::Many(_) => {
-                return Err(fault(
-                    "ArgumentError",
-                    "tolerance must be a single quantity",
-                ));
-            }
-        },
+        Some(v) => difference(x, v, "tolerance", name)?,
         None => {
             return Err(fault(
                 "ArgumentError",
@@ -417,13 +463,19 @@ pub(crate) fn register(engine: &mut Engine) {
         r#"
         Holds (plateaus): runs of at least `min_samples` samples whose peak-to-peak stays within
         `tolerance`; `settle_samples` at each end are left out of the mean. Each is a record with
-        `start`, `end` (sample indices, end exclusive), `mean` and `peak_to_peak`.
+        `start`, `end` (sample indices, end exclusive), `mean` and `peak_to_peak`. On a column
+        of temperature readings (°C) the tolerance is a temperature difference (`0.2 * K`).
         ```rhai
         let x = column([0.0, 0.0, 0.0, 0.0, 5.0, 10.0, 10.0, 10.0, 10.0, 10.0], "kN");
         let h = holds(x, #{ tolerance: 0.1 * kN, min_samples: 3 });
         assert_eq(h.len(), 2);
         assert_eq(h[1].start, 5);
         assert_close(h[1].mean, q("10 kN"), 1e-12);
+        let t = column([20.0, 20.1, 20.0, 40.0, 40.1, 40.0], "degC");
+        let soaks = holds(t, #{ tolerance: 0.2 * K, min_samples: 3 });
+        assert_eq(soaks.len(), 2);
+        assert_close(soaks[1].mean, q("40.0333333333 degC"), 1e-9);
+        assert_close(soaks[1].peak_to_peak, q("0.1 K"), 1e-9);
         ```
     "#,
     )
@@ -437,7 +489,7 @@ pub(crate) fn register(engine: &mut Engine) {
                         .field("start", h.start as INT)
                         .field("end", h.end as INT)
                         .field("mean", quantity_like(x, h.mean))
-                        .field("peak_to_peak", quantity_like(x, h.peak_to_peak)),
+                        .field("peak_to_peak", difference_like(x, h.peak_to_peak)),
                 )
             })
             .collect())
@@ -461,17 +513,8 @@ pub(crate) fn register(engine: &mut Engine) {
     )
     .register_into_engine(engine, |x: &mut Column, opts: Map| -> ScriptResult<Array> {
         let c = hold_criteria(x, &opts, "ramps()", &["min_change"])?;
-        let unit = x.unit().map(|u| u.symbol().to_string()).unwrap_or_default();
         let min_change = match opts.get("min_change") {
-            Some(v) => match values(v, "key `min_change` in options of ramps()", &unit)? {
-                Values::One(si) => si,
-                Values::Many(_) => {
-                    return Err(fault(
-                        "ArgumentError",
-                        "min_change must be a single quantity",
-                    ));
-                }
-            },
+            Some(v) => difference(x, v, "min_change", "ramps()")?,
             None => {
                 return Err(fault(
                     "ArgumentError",

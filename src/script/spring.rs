@@ -24,6 +24,8 @@ use crate::{
     ShearWeb, SpringElement, Stiffness, TorqueShaft, Wrench, material,
 };
 
+mod sweep;
+
 /// An element in a script (shared, so copies are cheap).
 #[derive(Clone)]
 pub(crate) struct Element(Arc<dyn SpringElement + Send + Sync>);
@@ -89,6 +91,18 @@ fn gauge_arg(g: &Dynamic) -> ScriptResult<Gauge> {
     Ok(gauge)
 }
 
+/// What sits at the load point for a frequency estimate: a mass (kg), or for an element rated
+/// in torque a rotary inertia (kg·m²).
+fn attached_arg(attached: &Quantity) -> ScriptResult<AttachedMass> {
+    Ok(if let Ok(m) = attached.value_in("kg") {
+        AttachedMass::mass(Mass::new::<kilogram>(m))
+    } else {
+        AttachedMass::inertia(uom::si::f64::MomentOfInertia::new::<kilogram_square_meter>(
+            attached.value_in("kg*m^2")?,
+        ))
+    })
+}
+
 fn margin_record(m: &MarginAt) -> ScriptResult<Record> {
     let opt = |v: Option<f64>| v.map_or(Dynamic::UNIT, Dynamic::from);
     Ok(Record::new(format!("margins at {}", m.level))
@@ -120,8 +134,9 @@ fn margins_of(e: &dyn SpringElement, rated: &Wrench) -> ScriptResult<Record> {
         .field("caution", MARGIN_CAUTION))
 }
 
-/// Registers materials, elements, layouts and the check-weighing station.
+/// Registers materials, elements, layouts, design sweeps and the check-weighing station.
 pub(crate) fn register(engine: &mut Engine) {
+    sweep::register(engine);
     engine.register_type_with_name::<Material>("Material");
     engine.register_fn("to_string", |m: &mut Material| m.to_string());
     engine.register_fn("to_debug", |m: &mut Material| m.to_string());
@@ -479,13 +494,7 @@ pub(crate) fn register(engine: &mut Engine) {
     .register_into_engine(
         engine,
         |e: &mut Element, attached: Quantity| -> ScriptResult<Dynamic> {
-            let a = if let Ok(m) = attached.value_in("kg") {
-                AttachedMass::mass(Mass::new::<kilogram>(m))
-            } else {
-                AttachedMass::inertia(uom::si::f64::MomentOfInertia::new::<kilogram_square_meter>(
-                    attached.value_in("kg*m^2")?,
-                ))
-            };
+            let a = attached_arg(&attached)?;
             q(
                 e.0.natural_frequency(&a)?
                     .get::<uom::si::frequency::hertz>(),

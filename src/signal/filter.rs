@@ -224,7 +224,8 @@ impl SosFilter {
             };
             let (group, tail) = rest.split_at_mut(take);
             if take == 4 {
-                run4(&self.sections, group);
+                let mut state = vec![[[0.0f64; 2]; 4]; self.sections.len()];
+                run4(&self.sections, &mut state, group);
             } else {
                 let mut state = vec![[0.0; 2]; self.sections.len()];
                 run(&self.sections, &mut state, group[0]);
@@ -301,10 +302,11 @@ pub(crate) fn run(sections: &[[f64; 6]], state: &mut [[f64; 2]], x: &mut [f64]) 
     }
 }
 
-/// [`run`] on four channels of equal length at once, from zero states.
-fn run4(sections: &[[f64; 6]], ch: &mut [&mut [f64]]) {
+/// [`run`] on four channels of equal length at once, carrying `state` (per section, one [z0, z1]
+/// per channel). Each channel sees exactly the arithmetic of [`run`]; interleaving four
+/// independent recursions only hides the latency of each one's feedback chain.
+pub(crate) fn run4(sections: &[[f64; 6]], state: &mut [[[f64; 2]; 4]], ch: &mut [&mut [f64]]) {
     let n = ch[0].len();
-    let mut state = vec![[[0.0f64; 2]; 4]; sections.len()];
     let mut start = 0;
     while start < n {
         let end = (start + BLOCK).min(n);

@@ -33,4 +33,4 @@ pub use rainflow::{Cycle, RangeBin, counts_by_range, rainflow_cycles, range_hist
 pub use resample::{resample_linear, uniform_times};
 pub use response::FrequencyResponse;
 pub use stats::{Summary, rising_crossings, summarize, summarize_windows};
-pub use stream::StreamingFilter;
+pub use stream::{StreamingBank, StreamingFilter};

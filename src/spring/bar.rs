@@ -1,12 +1,17 @@
 //! The prismatic bar fixed at x = 0 and loaded at its free end x = L, shared by the cantilever,
-//! column, shear web and torque shaft: resultants by statics, stress by [`Section`], and the
-//! peak-stress search.
+//! column, shear web and torque shaft: resultants by statics, stress by [`Section`], the
+//! peak-stress search, and [`bar_element!`], which writes the [`SpringElement`] methods those
+//! four answer alike, so that each element's file holds only what differs (its kind, sites,
+//! stiffness and frequency model).
+//!
+//! [`SpringElement`]: super::SpringElement
 
 use std::f64::consts::PI;
 
 use uom::si::angle::radian;
 use uom::si::length::meter;
 use uom::si::mass_density::kilogram_per_cubic_meter;
+use uom::si::pressure::pascal;
 
 use super::element::{PeakStress, check_station};
 use super::load::Wrench;
@@ -45,6 +50,16 @@ impl Bar {
         peak_over(&self.section, [0.0, self.length], Part::Body, |x| {
             cantilever_resultants(load, self.length - x)
         })
+    }
+
+    /// Young's modulus of the bar's material, Pa.
+    pub fn youngs_pa(&self) -> f64 {
+        self.material.youngs_modulus().get::<pascal>()
+    }
+
+    /// Shear modulus of the bar's material, Pa.
+    pub fn shear_pa(&self) -> f64 {
+        self.material.shear_modulus().get::<pascal>()
     }
 
     /// Mass of the bar, kg.
@@ -118,3 +133,42 @@ pub(crate) fn face_of(section: &Section, p: Point) -> (Face, f64) {
 pub(crate) fn len(v: f64) -> Length {
     Length::new::<meter>(v)
 }
+
+/// Writes the [`SpringElement`](super::SpringElement) methods of an element that is a [`Bar`]
+/// (field `bar`) with its standard sites at one station (field `station`, m): `kind`,
+/// `material`, `length`, `primary`, `sites`, `surface_stress` and `peak_stress`. Used inside
+/// the element's `impl SpringElement` block, which adds the rest.
+macro_rules! bar_element {
+    (kind: $kind:expr, primary: $primary:expr, sites: [$(($name:expr, $face:expr)),+ $(,)?]) => {
+        fn kind(&self) -> &'static str {
+            $kind
+        }
+        fn material(&self) -> &$crate::material::Material {
+            &self.bar.material
+        }
+        fn length(&self) -> $crate::units::Length {
+            $crate::units::Length::new::<uom::si::length::meter>(self.bar.length)
+        }
+        fn primary(&self) -> $crate::spring::LoadComponent {
+            $primary
+        }
+        fn sites(&self) -> Vec<$crate::spring::Site> {
+            let x = $crate::units::Length::new::<uom::si::length::meter>(self.station);
+            vec![$($crate::spring::Site::new($name, $face, x)),+]
+        }
+        fn surface_stress(
+            &self,
+            site: &$crate::spring::Site,
+            load: &$crate::spring::Wrench,
+        ) -> Result<$crate::spring::SurfaceStress, $crate::error::PhysicsError> {
+            self.bar.stress(site, load)
+        }
+        fn peak_stress(
+            &self,
+            load: &$crate::spring::Wrench,
+        ) -> Result<$crate::spring::PeakStress, $crate::error::PhysicsError> {
+            Ok(self.bar.peak(load))
+        }
+    };
+}
+pub(crate) use bar_element;

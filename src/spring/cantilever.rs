@@ -16,15 +16,12 @@
 //! deflection shape; Timoshenko, Young & Weaver, *Vibration Problems in Engineering*, 4th ed.,
 //! from memory).
 
-use uom::si::length::meter;
-use uom::si::pressure::pascal;
-
-use super::bar::{Bar, len};
-use super::element::{PeakStress, SpringElement, Stiffness, check_station};
-use super::load::{LoadComponent, Wrench};
-use super::section::{Section, si};
-use super::surface::{Face, Site, SurfaceStress};
-use crate::error::{PhysicsError, check_positive};
+use super::bar::{Bar, bar_element, len};
+use super::element::{SpringElement, Stiffness, check_station};
+use super::load::LoadComponent;
+use super::section::{Section, positive_length, si};
+use super::surface::Face;
+use crate::error::PhysicsError;
 use crate::material::Material;
 use crate::units::Length;
 
@@ -77,9 +74,9 @@ impl Cantilever {
         station: Length,
     ) -> Result<Cantilever, PhysicsError> {
         let model = "cantilever bending beam";
-        let l = check_positive("beam length", si(length) * 1e3, "mm")? * 1e-3;
-        let b = check_positive("beam width", si(width) * 1e3, "mm")? * 1e-3;
-        let h = check_positive("beam depth", si(depth) * 1e3, "mm")? * 1e-3;
+        let l = positive_length("beam length", length)?;
+        let b = positive_length("beam width", width)?;
+        let h = positive_length("beam depth", depth)?;
         if l / h < SLENDER_MIN {
             return Err(PhysicsError::out_of_range(
                 model,
@@ -155,36 +152,18 @@ impl Cantilever {
 }
 
 impl SpringElement for Cantilever {
-    fn kind(&self) -> &'static str {
-        "cantilever bending beam"
-    }
-    fn material(&self) -> &Material {
-        &self.bar.material
-    }
-    fn length(&self) -> Length {
-        Length::new::<meter>(self.bar.length)
-    }
-    fn primary(&self) -> LoadComponent {
-        LoadComponent::Fz
-    }
-    fn sites(&self) -> Vec<Site> {
-        let x = len(self.station);
-        vec![
-            Site::new("top", Face::PlusZ, x),
-            Site::new("bottom", Face::MinusZ, x),
-            Site::new("side +y", Face::PlusY, x),
-            Site::new("side -y", Face::MinusY, x),
+    bar_element! {
+        kind: "cantilever bending beam",
+        primary: LoadComponent::Fz,
+        sites: [
+            ("top", Face::PlusZ),
+            ("bottom", Face::MinusZ),
+            ("side +y", Face::PlusY),
+            ("side -y", Face::MinusY),
         ]
     }
-    fn surface_stress(&self, site: &Site, load: &Wrench) -> Result<SurfaceStress, PhysicsError> {
-        self.bar.stress(site, load)
-    }
-    fn peak_stress(&self, load: &Wrench) -> Result<PeakStress, PhysicsError> {
-        Ok(self.bar.peak(load))
-    }
     fn stiffness(&self) -> Stiffness {
-        let e = self.bar.material.youngs_modulus().get::<pascal>();
-        let g = self.bar.material.shear_modulus().get::<pascal>();
+        let (e, g) = (self.bar.youngs_pa(), self.bar.shear_pa());
         let l = self.bar.length;
         let s = &self.bar.section;
         let compliance = l.powi(3) / (3.0 * e * s.iyy()) + l / (KAPPA_RECT * g * s.area());

@@ -20,15 +20,13 @@
 use std::f64::consts::PI;
 
 use uom::si::force::newton;
-use uom::si::length::meter;
-use uom::si::pressure::pascal;
 
-use super::bar::{Bar, len};
-use super::element::{PeakStress, SpringElement, Stiffness, check_station};
-use super::load::{LoadComponent, Wrench};
-use super::section::{Section, si};
-use super::surface::{Face, Site, SurfaceStress};
-use crate::error::{PhysicsError, check_positive};
+use super::bar::{Bar, bar_element};
+use super::element::{SpringElement, Stiffness, check_station};
+use super::load::LoadComponent;
+use super::section::{Section, positive_length, si};
+use super::surface::Face;
+use crate::error::PhysicsError;
 use crate::material::Material;
 use crate::units::{Force, Length};
 
@@ -118,12 +116,9 @@ impl Column {
         station: Length,
     ) -> Result<Column, PhysicsError> {
         let model = "column";
-        let mm = |name: &str, v: Length| -> Result<f64, PhysicsError> {
-            Ok(check_positive(name, si(v) * 1e3, "mm")? * 1e-3)
-        };
         let (sec, width) = match section {
             ColumnSection::Round { diameter } => {
-                let d = mm("column diameter", diameter)?;
+                let d = positive_length("column diameter", diameter)?;
                 (
                     Section::Circle {
                         outer: d,
@@ -133,8 +128,8 @@ impl Column {
                 )
             }
             ColumnSection::HollowRound { outer, inner } => {
-                let d = mm("column outer diameter", outer)?;
-                let di = mm("column inner diameter", inner)?;
+                let d = positive_length("column outer diameter", outer)?;
+                let di = positive_length("column inner diameter", inner)?;
                 if di >= d {
                     return Err(PhysicsError::invalid(
                         "column inner diameter",
@@ -151,12 +146,12 @@ impl Column {
                 )
             }
             ColumnSection::Square { side } => {
-                let b = mm("column side", side)?;
+                let b = positive_length("column side", side)?;
                 (Section::Rectangle { b, h: b }, b)
             }
             ColumnSection::HollowSquare { side, wall } => {
-                let b = mm("column side", side)?;
-                let t = mm("column wall", wall)?;
+                let b = positive_length("column side", side)?;
+                let t = positive_length("column wall", wall)?;
                 if t / b > THIN_WALL_MAX {
                     return Err(PhysicsError::out_of_range(
                         "thin-walled square column",
@@ -169,7 +164,7 @@ impl Column {
                 (Section::Tube { b, h: b, t }, b)
             }
         };
-        let l = mm("column length", length)?;
+        let l = positive_length("column length", length)?;
         let x = si(station);
         check_station(
             "column (Saint-Venant: one width from each end)",
@@ -221,36 +216,18 @@ impl Column {
 }
 
 impl SpringElement for Column {
-    fn kind(&self) -> &'static str {
-        "column"
-    }
-    fn material(&self) -> &Material {
-        &self.bar.material
-    }
-    fn length(&self) -> Length {
-        Length::new::<meter>(self.bar.length)
-    }
-    fn primary(&self) -> LoadComponent {
-        LoadComponent::Fx
-    }
-    fn sites(&self) -> Vec<Site> {
-        let x = len(self.station);
-        vec![
-            Site::new("+y", Face::PlusY, x),
-            Site::new("+z", Face::PlusZ, x),
-            Site::new("-y", Face::MinusY, x),
-            Site::new("-z", Face::MinusZ, x),
+    bar_element! {
+        kind: "column",
+        primary: LoadComponent::Fx,
+        sites: [
+            ("+y", Face::PlusY),
+            ("+z", Face::PlusZ),
+            ("-y", Face::MinusY),
+            ("-z", Face::MinusZ),
         ]
     }
-    fn surface_stress(&self, site: &Site, load: &Wrench) -> Result<SurfaceStress, PhysicsError> {
-        self.bar.stress(site, load)
-    }
-    fn peak_stress(&self, load: &Wrench) -> Result<PeakStress, PhysicsError> {
-        Ok(self.bar.peak(load))
-    }
     fn stiffness(&self) -> Stiffness {
-        let e = self.bar.material.youngs_modulus().get::<pascal>();
-        Stiffness::Translational(e * self.bar.section.area() / self.bar.length)
+        Stiffness::Translational(self.bar.youngs_pa() * self.bar.section.area() / self.bar.length)
     }
     fn rayleigh_share(&self) -> (f64, f64) {
         (1.0 / 3.0, self.bar.mass())
@@ -260,7 +237,7 @@ impl SpringElement for Column {
          (Rayleigh, linear axial displacement)"
     }
     fn buckling_load(&self) -> Option<Force> {
-        let e = self.bar.material.youngs_modulus().get::<pascal>();
+        let e = self.bar.youngs_pa();
         let i = self.bar.section.iyy().min(self.bar.section.izz());
         let l = self.bar.length;
         Some(Force::new::<newton>(PI * PI * e * i / (4.0 * l * l)))

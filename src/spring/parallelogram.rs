@@ -32,9 +32,9 @@ use uom::si::pressure::pascal;
 use super::bar::{len, peak_over};
 use super::element::{PeakStress, SpringElement, Stiffness, check_station};
 use super::load::{LoadComponent, Wrench};
-use super::section::{Resultants, Section, si};
+use super::section::{Resultants, Section, positive_length, si};
 use super::surface::{Face, Part, Site, SurfaceStress};
-use crate::error::{PhysicsError, check_positive};
+use crate::error::PhysicsError;
 use crate::material::Material;
 use crate::units::Length;
 
@@ -101,13 +101,10 @@ impl Parallelogram {
         station: Length,
     ) -> Result<Parallelogram, PhysicsError> {
         let model = "parallelogram beam";
-        let mm = |name: &str, v: Length| -> Result<f64, PhysicsError> {
-            Ok(check_positive(name, si(v) * 1e3, "mm")? * 1e-3)
-        };
-        let l = mm("flexure length", length)?;
-        let b = mm("flexure width", width)?;
-        let h = mm("flexure thickness", thickness)?;
-        let spacing_m = mm("flexure spacing", spacing)?;
+        let l = positive_length("flexure length", length)?;
+        let b = positive_length("flexure width", width)?;
+        let h = positive_length("flexure thickness", thickness)?;
+        let spacing_m = positive_length("flexure spacing", spacing)?;
         if l / h < super::cantilever::SLENDER_MIN {
             return Err(PhysicsError::out_of_range(
                 model,

@@ -402,6 +402,14 @@ pub(crate) fn si(l: uom::si::f64::Length) -> f64 {
     l.get::<meter>()
 }
 
+/// A dimension checked to be positive and finite (the error shows it in mm), in metres.
+pub(crate) fn positive_length(
+    name: &str,
+    l: uom::si::f64::Length,
+) -> Result<f64, crate::error::PhysicsError> {
+    Ok(crate::error::check_positive(name, si(l) * 1e3, "mm")? * 1e-3)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;

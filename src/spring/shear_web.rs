@@ -16,15 +16,12 @@
 //! shear term F·L/(G·A_web) to F·L³/(3EI) (Timoshenko & Gere 4th ed. §9.11, from memory). The
 //! frequency is the tip-mass spring plus 33/140 of the beam's mass (Rayleigh).
 
-use uom::si::length::meter;
-use uom::si::pressure::pascal;
-
-use super::bar::{Bar, len};
-use super::element::{PeakStress, SpringElement, Stiffness, check_station};
-use super::load::{LoadComponent, Wrench};
-use super::section::{Section, si};
-use super::surface::{Face, Site, SurfaceStress};
-use crate::error::{PhysicsError, check_positive};
+use super::bar::{Bar, bar_element};
+use super::element::{SpringElement, Stiffness, check_station};
+use super::load::LoadComponent;
+use super::section::{Section, positive_length, si};
+use super::surface::Face;
+use crate::error::PhysicsError;
 use crate::material::Material;
 use crate::units::Length;
 
@@ -75,14 +72,11 @@ impl ShearWeb {
         station: Length,
     ) -> Result<ShearWeb, PhysicsError> {
         let model = "shear web";
-        let mm = |name: &str, v: Length| -> Result<f64, PhysicsError> {
-            Ok(check_positive(name, si(v) * 1e3, "mm")? * 1e-3)
-        };
-        let l = mm("beam length", length)?;
-        let h = mm("beam depth", depth)?;
-        let bf = mm("flange width", flange_width)?;
-        let tf = mm("flange thickness", flange_thickness)?;
-        let tw = mm("web thickness", web_thickness)?;
+        let l = positive_length("beam length", length)?;
+        let h = positive_length("beam depth", depth)?;
+        let bf = positive_length("flange width", flange_width)?;
+        let tf = positive_length("flange thickness", flange_thickness)?;
+        let tw = positive_length("web thickness", web_thickness)?;
         for (name, t) in [("flange thickness", tf), ("web thickness", tw)] {
             if t / h > THIN_MAX {
                 return Err(PhysicsError::out_of_range(
@@ -141,36 +135,18 @@ impl ShearWeb {
 }
 
 impl SpringElement for ShearWeb {
-    fn kind(&self) -> &'static str {
-        "shear web (I-section shear beam)"
-    }
-    fn material(&self) -> &Material {
-        &self.bar.material
-    }
-    fn length(&self) -> Length {
-        Length::new::<meter>(self.bar.length)
-    }
-    fn primary(&self) -> LoadComponent {
-        LoadComponent::Fz
-    }
-    fn sites(&self) -> Vec<Site> {
-        let x = len(self.station);
-        vec![
-            Site::new("web +y", Face::PlusY, x),
-            Site::new("web -y", Face::MinusY, x),
-            Site::new("top flange", Face::PlusZ, x),
-            Site::new("bottom flange", Face::MinusZ, x),
+    bar_element! {
+        kind: "shear web (I-section shear beam)",
+        primary: LoadComponent::Fz,
+        sites: [
+            ("web +y", Face::PlusY),
+            ("web -y", Face::MinusY),
+            ("top flange", Face::PlusZ),
+            ("bottom flange", Face::MinusZ),
         ]
     }
-    fn surface_stress(&self, site: &Site, load: &Wrench) -> Result<SurfaceStress, PhysicsError> {
-        self.bar.stress(site, load)
-    }
-    fn peak_stress(&self, load: &Wrench) -> Result<PeakStress, PhysicsError> {
-        Ok(self.bar.peak(load))
-    }
     fn stiffness(&self) -> Stiffness {
-        let e = self.bar.material.youngs_modulus().get::<pascal>();
-        let g = self.bar.material.shear_modulus().get::<pascal>();
+        let (e, g) = (self.bar.youngs_pa(), self.bar.shear_pa());
         let l = self.bar.length;
         let a_web = match self.bar.section {
             Section::IBeam { h, tf, tw, .. } => (h - 2.0 * tf) * tw,

@@ -13,16 +13,15 @@
 //! 1/3 of the shaft's own polar inertia (Rayleigh, linear twist; Timoshenko, Young & Weaver,
 //! *Vibration Problems in Engineering*, 4th ed., from memory).
 
-use uom::si::length::meter;
 use uom::si::mass_density::kilogram_per_cubic_meter;
 use uom::si::pressure::pascal;
 
-use super::bar::{Bar, len};
-use super::element::{PeakStress, SpringElement, Stiffness, check_station};
-use super::load::{LoadComponent, Wrench};
-use super::section::{Section, si};
-use super::surface::{Face, Site, SurfaceStress};
-use crate::error::{PhysicsError, check_positive};
+use super::bar::{Bar, bar_element};
+use super::element::{SpringElement, Stiffness, check_station};
+use super::load::LoadComponent;
+use super::section::{Section, positive_length, si};
+use super::surface::Face;
+use crate::error::PhysicsError;
 use crate::material::Material;
 use crate::units::{Angle, Length};
 
@@ -94,11 +93,11 @@ impl TorqueShaft {
         length: Length,
         station: Length,
     ) -> Result<TorqueShaft, PhysicsError> {
-        let d = check_positive("shaft diameter", si(outer) * 1e3, "mm")? * 1e-3;
+        let d = positive_length("shaft diameter", outer)?;
         let di = match inner {
             None => 0.0,
             Some(i) => {
-                let di = check_positive("shaft inner diameter", si(i) * 1e3, "mm")? * 1e-3;
+                let di = positive_length("shaft inner diameter", i)?;
                 if di >= d {
                     return Err(PhysicsError::invalid(
                         "shaft inner diameter",
@@ -109,7 +108,7 @@ impl TorqueShaft {
                 di
             }
         };
-        let l = check_positive("shaft length", si(length) * 1e3, "mm")? * 1e-3;
+        let l = positive_length("shaft length", length)?;
         let x = si(station);
         check_station(
             "torque shaft (Saint-Venant: one diameter from each end)",
@@ -158,37 +157,20 @@ impl TorqueShaft {
 }
 
 impl SpringElement for TorqueShaft {
-    fn kind(&self) -> &'static str {
-        "torque shaft"
-    }
-    fn material(&self) -> &Material {
-        &self.bar.material
-    }
-    fn length(&self) -> Length {
-        Length::new::<meter>(self.bar.length)
-    }
-    fn primary(&self) -> LoadComponent {
-        LoadComponent::Mx
-    }
-    fn sites(&self) -> Vec<Site> {
-        let x = len(self.station);
-        let at = |deg: f64| Face::Round(Angle::new::<uom::si::angle::degree>(deg));
-        vec![
-            Site::new("+y", at(0.0), x),
-            Site::new("+z", at(90.0), x),
-            Site::new("-y", at(180.0), x),
-            Site::new("-z", at(270.0), x),
+    bar_element! {
+        kind: "torque shaft",
+        primary: LoadComponent::Mx,
+        sites: [
+            ("+y", round(0.0)),
+            ("+z", round(90.0)),
+            ("-y", round(180.0)),
+            ("-z", round(270.0)),
         ]
     }
-    fn surface_stress(&self, site: &Site, load: &Wrench) -> Result<SurfaceStress, PhysicsError> {
-        self.bar.stress(site, load)
-    }
-    fn peak_stress(&self, load: &Wrench) -> Result<PeakStress, PhysicsError> {
-        Ok(self.bar.peak(load))
-    }
     fn stiffness(&self) -> Stiffness {
-        let g = self.bar.material.shear_modulus().get::<pascal>();
-        Stiffness::Rotational(g * self.bar.section.torsion_constant() / self.bar.length)
+        Stiffness::Rotational(
+            self.bar.shear_pa() * self.bar.section.torsion_constant() / self.bar.length,
+        )
     }
     fn rayleigh_share(&self) -> (f64, f64) {
         let rho = self
@@ -205,4 +187,9 @@ impl SpringElement for TorqueShaft {
         "attached rotary inertia on the shaft's torsional stiffness GJ/L, plus 1/3 of the \
          shaft's polar inertia (Rayleigh, linear twist)"
     }
+}
+
+/// The round face at `deg` degrees about the axis from +Y.
+fn round(deg: f64) -> Face {
+    Face::Round(Angle::new::<uom::si::angle::degree>(deg))
 }

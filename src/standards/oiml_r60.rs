@@ -502,3 +502,21 @@ fn mpe_envelope(class: OimlClass, p_lc: f64, v: f64, d_min: f64, d_max: f64) -> 
     out.push((d_max, mpe(d_max)));
     out
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    /// Band edges outside the tested range add no steps: class D on 100 v has only its first
+    /// edge (50 v) inside (R 60-1 Table 4, band values from memory).
+    #[test]
+    fn envelope_steps_only_inside_the_range() {
+        let e = mpe_envelope(OimlClass::D, 0.7, 1.0, 0.0, 100.0);
+        assert_eq!(
+            e,
+            vec![(0.0, 0.35), (50.0, 0.35), (50.0, 0.7), (100.0, 0.7)]
+        );
+        let e = mpe_envelope(OimlClass::A, 0.5, 1.0, 10.0, 1000.0);
+        assert_eq!(e, vec![(10.0, 0.25), (1000.0, 0.25)]);
+    }
+}

@@ -229,6 +229,32 @@ impl Quantity {
         self.unit.as_deref()
     }
 
+    /// The unit the quantity is shown in: its display unit if it has one, else the SI unit that
+    /// [`Display`](fmt::Display) chooses from its dimension, kind and size (a product of a
+    /// strain and a modulus shows in `MPa`). `None` for a plain number, or for a dimension that
+    /// shows in base units only.
+    ///
+    /// ```
+    /// use gaugebook::units::Quantity;
+    /// let s = Quantity::parse("100 ue")?.mul(&Quantity::parse("210 GPa")?);
+    /// assert!(s.unit().is_none());
+    /// assert_eq!(s.shown_unit().map(|u| u.symbol().to_string()), Some("MPa".to_string()));
+    /// assert!(Quantity::number(2.0).shown_unit().is_none());
+    /// # Ok::<(), gaugebook::units::UnitError>(())
+    /// ```
+    pub fn shown_unit(&self) -> Option<Unit> {
+        if let Some(u) = &self.unit {
+            return Some(u.as_ref().clone());
+        }
+        let (_, symbol) = format::auto(self.si, self.dim, self.kind);
+        if symbol.is_empty() {
+            return None;
+        }
+        Unit::parse(&symbol)
+            .ok()
+            .filter(|u| u.dimension() == self.dim && u.kind() == self.kind)
+    }
+
     /// The same quantity with another kind (same dimension, same SI value, no display unit):
     /// how a script says that a computed ratio is a strain. A kind that does not suit the
     /// dimension is fitted to it ([`Kind::fit`]).
