@@ -11,22 +11,14 @@ use std::io::Write;
 use std::path::{Path, PathBuf};
 use std::process::Command;
 use std::sync::atomic::{AtomicBool, Ordering};
-use std::sync::{Arc, Mutex, OnceLock};
+use std::sync::{Arc, Mutex};
 use std::time::Duration;
 
+use crate::common::pyenv::{pyenv, target_dir};
 use gaugebook::{
     Backend, CellError, CodeStatus, CompletionSet, Interrupter, KernelOutput, KernelspecTarget,
     MimeBundle,
 };
-
-/// Packages the client side needs, from PyPI (ipykernel only for the latency comparison).
-const PY_PACKAGES: &[&str] = &[
-    "jupyter_client",
-    "nbclient",
-    "nbformat",
-    "jupyter_kernel_test",
-    "ipykernel",
-];
 
 /// Environment variable that turns this test binary into a kernel process.
 const CHILD_ENV: &str = "GAUGEBOOK_KERNEL_CHILD";
@@ -202,73 +194,7 @@ fn run_session_kernel(file: &Path) -> Result<(), gaugebook::KernelError> {
 }
 
 // ---------------------------------------------------------------------------------------------
-// Provisioning.
-
-fn target_dir() -> PathBuf {
-    // The test binary lives in target/<profile>/deps/.
-    let exe = std::env::current_exe().expect("the test binary knows its own path");
-    exe.ancestors()
-        .nth(3)
-        .map(Path::to_path_buf)
-        .unwrap_or_else(|| PathBuf::from("target"))
-}
-
-fn find_python() -> Option<PathBuf> {
-    let candidates = std::env::var_os("GAUGEBOOK_PYTHON")
-        .map(PathBuf::from)
-        .into_iter()
-        .chain(["python3", "python"].map(PathBuf::from));
-    for c in candidates {
-        let ok = Command::new(&c)
-            .args(["-c", "import sys, venv; assert sys.version_info >= (3, 9)"])
-            .output()
-            .is_ok_and(|o| o.status.success());
-        if ok {
-            return Some(c);
-        }
-    }
-    None
-}
-
-/// The venv's python, creating and filling the venv on first use. `None` when Python is missing.
-fn pyenv() -> Option<PathBuf> {
-    static ENV: OnceLock<Option<PathBuf>> = OnceLock::new();
-    ENV.get_or_init(|| {
-        let Some(python) = find_python() else {
-            eprintln!(
-                "\n\n!!!!!!!! SKIPPED: the kernel's real-client tests need Python 3 (python3 on PATH \
-                 or GAUGEBOOK_PYTHON) and found none !!!!!!!!\n\n"
-            );
-            return None;
-        };
-        let dir = target_dir().join("pyenv");
-        let bin = if cfg!(windows) {
-            dir.join("Scripts").join("python.exe")
-        } else {
-            dir.join("bin").join("python")
-        };
-        let ready = dir.join(".gaugebook-ready");
-        if !ready.exists() {
-            if !bin.exists() {
-                let st = Command::new(&python)
-                    .args(["-m", "venv"])
-                    .arg(&dir)
-                    .status()
-                    .expect("python -m venv runs");
-                assert!(st.success(), "python -m venv {} failed", dir.display());
-            }
-            let st = Command::new(&bin)
-                .args(["-m", "pip", "install", "--quiet", "--disable-pip-version-check"])
-                .args(PY_PACKAGES)
-                .status()
-                .expect("pip runs");
-            assert!(st.success(), "pip install {PY_PACKAGES:?} failed");
-            std::fs::write(&ready, PY_PACKAGES.join("\n")).expect("marker file is writable");
-        }
-        Some(bin)
-    })
-    .clone()
-}
+// Provisioning (the Python venv itself: tests/common/pyenv.rs, shared with the evcxr test).
 
 /// Which engine the kernel under test runs.
 #[derive(Clone, Copy, PartialEq, Eq)]

@@ -11,6 +11,8 @@ mod common;
 mod data;
 #[cfg(feature = "cli")]
 mod demo;
+#[cfg(feature = "kernel")]
+mod evcxr;
 mod examples;
 mod gauge;
 #[cfg(feature = "kernel")]

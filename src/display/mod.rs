@@ -8,6 +8,15 @@ mod calib;
 
 use std::collections::BTreeMap;
 
+// Views of the physics results (issue 8 item 4) and the evcxr display methods (feature `evcxr`).
+mod bridge;
+#[cfg(feature = "evcxr")]
+mod evcxr;
+mod grid;
+mod layout;
+mod spring;
+mod weighing;
+
 /// One value's representations, keyed by MIME type (`text/plain` always present).
 ///
 /// ```

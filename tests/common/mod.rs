@@ -9,3 +9,7 @@ pub fn assert_close(actual: f64, expected: f64, rel: f64, abs: f64) {
         "expected {expected} (±{tol}), found {actual}"
     );
 }
+
+/// The Jupyter clients' Python environment (the kernel and evcxr notebook tests).
+#[cfg(feature = "kernel")]
+pub mod pyenv;
