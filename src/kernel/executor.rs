@@ -163,7 +163,13 @@ pub(crate) struct Executor {
     interrupter: Arc<OnceLock<Interrupter>>,
     running: Arc<AtomicBool>,
     output: Arc<CellOutput>,
+    /// Lets the execution thread start building the engine (see [`Executor::release`]).
+    go: Mutex<Option<mpsc::Sender<()>>>,
 }
+
+/// How long the execution thread waits for the first request before it builds the engine
+/// anyway: our choice, long enough for a client's handshake, short beside the engine's use.
+const ENGINE_HOLD: std::time::Duration = std::time::Duration::from_millis(200);
 
 impl Executor {
     /// Starts the thread, which builds the engine with `make`. Returns at once, so the sockets
@@ -192,9 +198,14 @@ impl Executor {
             interrupted: AtomicBool::new(false),
         });
         let kept = output.clone();
+        let (go_tx, go_rx) = mpsc::channel::<()>();
         std::thread::Builder::new()
             .name("gaugebook-exec".into())
             .spawn(move || {
+                // Building the engine takes both cores' worth of work for a moment; the
+                // client's first kernel_info should not wait behind it, so hold until the
+                // kernel has answered (or any job arrives, or ENGINE_HOLD passes).
+                let _ = go_rx.recv_timeout(ENGINE_HOLD);
                 let mut backend = match make() {
                     Ok(b) => b,
                     Err(e) => {
@@ -213,9 +224,18 @@ impl Executor {
                 interrupter,
                 running,
                 output: kept,
+                go: Mutex::new(Some(go_tx)),
             },
             fail_rx,
         ))
+    }
+
+    /// Lets the engine build start now (the first reply is out, or a job needs the engine);
+    /// later calls do nothing.
+    pub fn release(&self) {
+        if let Some(go) = self.go.lock().unwrap_or_else(|p| p.into_inner()).take() {
+            let _ = go.send(());
+        }
     }
 
     /// Stops the running cell, if one runs (an interrupt while idle is a no-op, so it cannot

@@ -251,6 +251,7 @@ async fn serve_router(mut socket: RouterSocket, kernel: Arc<Kernel>, channel: Ch
             send(&mut socket, &kernel, &reply).await;
         }
         kernel.iopub.status(&msg.header, "idle");
+        kernel.exec.release();
         if kernel.stopping.load(Ordering::SeqCst) {
             kernel.shutdown.notify_one();
             return;
@@ -347,6 +348,7 @@ impl Kernel {
     /// Sends a job to the execution thread and waits for its answer.
     async fn ask<T>(&self, job: impl FnOnce(oneshot::Sender<T>) -> Job) -> Option<T> {
         let (tx, rx) = oneshot::channel();
+        self.exec.release();
         self.exec.jobs.send(job(tx)).ok()?;
         rx.await.ok()
     }
