@@ -19,6 +19,7 @@
 
 mod display;
 mod error;
+mod text;
 pub mod units;
 
 // Signal processing, statistics and fatigue counting (issue 6).

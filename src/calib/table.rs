@@ -11,22 +11,7 @@ use crate::{
     CalibrationRun, Characterisation, ClassVerdict, Figure, Fit, GumResult, VERDICT_CAUTION,
 };
 
-/// Escapes text for HTML element content (the physics layer keeps its own small escaper rather
-/// than reaching up into the display layer).
-fn html_escape(text: &str) -> String {
-    let mut out = String::with_capacity(text.len());
-    for c in text.chars() {
-        match c {
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '&' => out.push_str("&amp;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&#39;"),
-            c => out.push(c),
-        }
-    }
-    out
-}
+use crate::text::html_escape;
 
 /// One row of a report table.
 ///

@@ -129,22 +129,4 @@ pub trait ToMime {
     fn to_mime(&self) -> MimeBundle;
 }
 
-/// Escapes text for inclusion in HTML element content or attribute values.
-///
-/// ```
-/// assert_eq!(gaugebook::html_escape("a<b & \"c\""), "a&lt;b &amp; &quot;c&quot;");
-/// ```
-pub fn html_escape(text: &str) -> String {
-    let mut out = String::with_capacity(text.len());
-    for c in text.chars() {
-        match c {
-            '<' => out.push_str("&lt;"),
-            '>' => out.push_str("&gt;"),
-            '&' => out.push_str("&amp;"),
-            '"' => out.push_str("&quot;"),
-            '\'' => out.push_str("&#39;"),
-            c => out.push(c),
-        }
-    }
-    out
-}
+pub use crate::text::html_escape;
