@@ -69,6 +69,7 @@ enum Command {
 /// Parses the command line, runs the command, and maps any error to exit code 1 with its chain
 /// of causes on standard error. A script error exits with 1 after printing
 /// `FILE:LINE:COL: message`, the source line and a caret.
+///
 /// ```no_run
 /// // src/main.rs is exactly this:
 /// fn main() -> std::process::ExitCode {

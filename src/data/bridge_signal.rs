@@ -24,6 +24,12 @@ pub struct AdcScale {
 
 impl AdcScale {
     /// A scale from counts at full scale and the output ratio there.
+    ///
+    /// ```
+    /// use gaugebook::{AdcScale, OutputRatio};
+    /// assert!(AdcScale::new(1000.0, OutputRatio::from_mv_per_v(2.0)).is_ok());
+    /// assert!(AdcScale::new(0.0, OutputRatio::from_mv_per_v(2.0)).is_err());
+    /// ```
     pub fn new(full_scale_counts: f64, full_scale: OutputRatio) -> Result<AdcScale, PhysicsError> {
         check_positive("full-scale counts", full_scale_counts, "")?;
         check_positive("full-scale output ratio", full_scale.value(), " V/V")?;
@@ -67,6 +73,13 @@ impl AdcScale {
     }
 
     /// The output ratio (V/V) of one reading.
+    ///
+    /// ```
+    /// use gaugebook::{AdcScale, OutputRatio};
+    /// let adc = AdcScale::new(1000.0, OutputRatio::from_mv_per_v(2.0))?;
+    /// assert!((adc.ratio(-250.0) + 0.5e-3).abs() < 1e-18);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
     pub fn ratio(&self, counts: f64) -> f64 {
         counts * self.ratio_per_count
     }

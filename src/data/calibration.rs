@@ -32,6 +32,13 @@ pub enum CalibrationModel {
 
 impl CalibrationModel {
     /// The load for one signal value.
+    ///
+    /// ```
+    /// use gaugebook::CalibrationModel;
+    /// // 2 mV/V at 10 kN with a zero of 0.012 mV/V: 1.012 mV/V reads 5 kN.
+    /// let m = CalibrationModel::Linear { sensitivity: 0.2, zero: 0.012 };
+    /// assert!((m.load(1.012) - 5.0).abs() < 1e-12);
+    /// ```
     pub fn load(&self, x: f64) -> f64 {
         match self {
             CalibrationModel::Linear { sensitivity, zero } => (x - zero) / sensitivity,

@@ -121,6 +121,19 @@ impl std::fmt::Debug for ColumnWriter {
 
 impl ColumnWriter {
     /// Starts writing columns `names` to `path` (format from `opts` or the extension).
+    ///
+    /// ```
+    /// use gaugebook::{ColumnWriter, DataError, ExportOptions};
+    /// let dir = tempfile::tempdir()?;
+    /// let input = dir.path().join("log.csv");
+    /// std::fs::write(&input, "t,x\n0,1\n")?;
+    /// // Writing over a protected input is refused before anything is written.
+    /// let opts = ExportOptions { protect: vec![input.clone()], ..Default::default() };
+    /// let e = ColumnWriter::create(&input, &["t"], &opts).unwrap_err();
+    /// assert!(matches!(e, DataError::WouldOverwriteInput { .. }));
+    /// assert_eq!(std::fs::read_to_string(&input)?, "t,x\n0,1\n");
+    /// # Ok::<(), Box<dyn std::error::Error>>(())
+    /// ```
     pub fn create(
         path: impl AsRef<Path>,
         names: &[&str],
@@ -184,6 +197,15 @@ impl ColumnWriter {
     }
 
     /// Appends one block: a slice per column, all of one length.
+    ///
+    /// ```
+    /// use gaugebook::{ColumnWriter, ExportOptions};
+    /// let dir = tempfile::tempdir()?;
+    /// let mut w = ColumnWriter::create(dir.path().join("o.csv"), &["a", "b"], &ExportOptions::default())?;
+    /// w.append(&[&[1.0], &[2.0]])?;
+    /// assert!(w.append(&[&[1.0, 2.0], &[3.0]]).is_err()); // ragged block
+    /// # Ok::<(), Box<dyn std::error::Error>>(())
+    /// ```
     pub fn append(&mut self, columns: &[&[f64]]) -> Result<(), DataError> {
         if columns.len() != self.names.len() {
             return Err(DataError::LengthMismatch {
@@ -221,6 +243,17 @@ impl ColumnWriter {
     }
 
     /// Completes the file, flushes it to disk and renames it over the target. Returns its size.
+    ///
+    /// ```
+    /// use gaugebook::{ColumnWriter, ExportOptions};
+    /// let dir = tempfile::tempdir()?;
+    /// let out = dir.path().join("o.csv");
+    /// let mut w = ColumnWriter::create(&out, &["load"], &ExportOptions::default())?;
+    /// w.append(&[&[5.0]])?;
+    /// let bytes = w.finish()?;
+    /// assert_eq!(bytes, std::fs::metadata(&out)?.len());
+    /// # Ok::<(), Box<dyn std::error::Error>>(())
+    /// ```
     pub fn finish(self) -> Result<u64, DataError> {
         let path = self.path;
         match self.sink {

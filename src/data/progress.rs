@@ -73,6 +73,14 @@ struct BarState {
 
 impl TerminalProgress {
     /// A bar that draws when stderr is a terminal.
+    ///
+    /// ```
+    /// use gaugebook::{Progress, TerminalProgress};
+    /// let bar = TerminalProgress::new(); // silent when stderr is not a terminal (as under tests)
+    /// bar.start("reading log.csv", Some(1024));
+    /// bar.advance(512);
+    /// bar.finish();
+    /// ```
     pub fn new() -> TerminalProgress {
         TerminalProgress::with_enabled(std::io::stderr().is_terminal())
     }

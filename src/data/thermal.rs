@@ -27,12 +27,23 @@ pub struct TemperatureCompensation {
 
 impl TemperatureCompensation {
     /// The signal the model predicts at `temperature_k` for `reference_signal` at the reference.
+    ///
+    /// ```
+    /// let tc = gaugebook::TemperatureCompensation { tc_zero: 1e-4, tc_span: 2e-5, reference_k: 293.15 };
+    /// // 10 K warmer: span +0.02 %, zero +0.001.
+    /// assert!((tc.apparent(2.0, 303.15) - (2.0 * 1.0002 + 0.001)).abs() < 1e-15);
+    /// ```
     pub fn apparent(&self, reference_signal: f64, temperature_k: f64) -> f64 {
         let dt = temperature_k - self.reference_k;
         reference_signal * (1.0 + self.tc_span * dt) + self.tc_zero * dt
     }
 
     /// The signal at the reference temperature for `signal` read at `temperature_k`.
+    ///
+    /// ```
+    /// let tc = gaugebook::TemperatureCompensation { tc_zero: 1e-4, tc_span: 2e-5, reference_k: 293.15 };
+    /// assert!((tc.compensate(2.0 * 1.0002 + 0.001, 303.15) - 2.0).abs() < 1e-15);
+    /// ```
     pub fn compensate(&self, signal: f64, temperature_k: f64) -> f64 {
         let dt = temperature_k - self.reference_k;
         (signal - self.tc_zero * dt) / (1.0 + self.tc_span * dt)

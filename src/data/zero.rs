@@ -61,6 +61,11 @@ pub struct DriftLine {
 
 impl DriftLine {
     /// The zero at time `t`.
+    ///
+    /// ```
+    /// let d = gaugebook::DriftLine { t_a: 0.0, at_a: 0.01, slope: -0.001 };
+    /// assert!((d.at(10.0) - 0.0).abs() < 1e-15);
+    /// ```
     pub fn at(&self, t: f64) -> f64 {
         self.at_a + self.slope * (t - self.t_a)
     }

@@ -79,6 +79,7 @@ pub struct ExampleCell {
 
 /// The invented 500 N load cell of the example notebooks (a plausible OIML class C cell; the
 /// values are chosen for the example, not taken from any instrument).
+///
 /// ```
 /// let c = gaugebook::EXAMPLE_CELL;
 /// assert_eq!(c.capacity_n, 500.0);
@@ -203,6 +204,7 @@ pub struct ExampleSpectrum {
 }
 
 /// The spectrum of the example fatigue log.
+///
 /// ```
 /// let s = gaugebook::EXAMPLE_SPECTRUM;
 /// let cycles: u32 = s.blocks.iter().map(|b| b.1).sum();
@@ -557,6 +559,7 @@ pub fn fatigue_log() -> String {
 }
 
 /// Every example log, in the order the notebooks use them.
+///
 /// ```
 /// let logs = gaugebook::example_logs();
 /// assert!(logs.iter().all(|l| l.file_name.ends_with(".csv") && l.csv.ends_with('\n')));

@@ -32,6 +32,7 @@ pub struct MimeBundle {
 
 impl MimeBundle {
     /// A bundle holding only `text/plain`.
+    ///
     /// ```
     /// let b = gaugebook::MimeBundle::text("350 Ω");
     /// assert_eq!(b.get("text/plain"), Some("350 Ω"));
@@ -45,6 +46,7 @@ impl MimeBundle {
 
     /// Adds (or replaces) one representation. Binary types such as `image/png` hold base64 text,
     /// as the Jupyter message format requires.
+    ///
     /// ```
     /// let b = gaugebook::MimeBundle::text("a").with("text/html", "<p>a</p>").with("text/html", "<b>a</b>");
     /// assert_eq!(b.get("text/html"), Some("<b>a</b>"));
@@ -55,6 +57,7 @@ impl MimeBundle {
     }
 
     /// The representation for one MIME type.
+    ///
     /// ```
     /// let b = gaugebook::MimeBundle::text("1 kN").with("text/latex", "$1\\,\\mathrm{kN}$");
     /// assert_eq!(b.get("text/latex"), Some("$1\\,\\mathrm{kN}$"));
@@ -64,6 +67,7 @@ impl MimeBundle {
     }
 
     /// The MIME types present, in sorted order.
+    ///
     /// ```
     /// let b = gaugebook::MimeBundle::text("x").with("image/svg+xml", "<svg/>");
     /// assert_eq!(b.mime_types().collect::<Vec<_>>(), ["image/svg+xml", "text/plain"]);

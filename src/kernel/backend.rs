@@ -85,6 +85,7 @@ pub struct CompletionSet {
 }
 
 /// Stops the running cell; callable from any thread.
+///
 /// ```
 /// use std::sync::{Arc, atomic::{AtomicBool, Ordering}};
 /// let flag = Arc::new(AtomicBool::new(false));

@@ -9,6 +9,7 @@ use serde_json::json;
 use super::{KernelError, logo};
 
 /// The kernelspec's folder name, which Jupyter uses as the kernel's name.
+///
 /// ```
 /// assert_eq!(gaugebook::KERNEL_NAME, "gaugebook");
 /// ```

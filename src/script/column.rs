@@ -38,6 +38,7 @@ pub struct Column {
 
 impl Column {
     /// A column from values written in `unit`; converted to SI in place (no copy).
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// let e = Column::new(vec![0.0, 500.0, 1000.0], "ue")?;
@@ -63,6 +64,7 @@ impl Column {
 
     /// A column from SI values; `unit` (if any) must have the same dimension and kind, else it
     /// is dropped and the column shows in SI.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// use std::sync::Arc;
@@ -90,6 +92,7 @@ impl Column {
     }
 
     /// The SI values.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// let c = Column::new(vec![1.5], "kN")?;
@@ -101,6 +104,7 @@ impl Column {
     }
 
     /// The dimension.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// let c = Column::new(vec![1.0], "kN")?;
@@ -112,6 +116,7 @@ impl Column {
     }
 
     /// The kind.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// assert_eq!(Column::new(vec![2.0], "mV/V")?.kind(), gaugebook::Kind::OutputRatio);
@@ -122,6 +127,7 @@ impl Column {
     }
 
     /// The display unit, if any.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// assert_eq!(Column::new(vec![2.0], "MPa")?.unit().map(|u| u.symbol()), Some("MPa"));
@@ -132,6 +138,7 @@ impl Column {
     }
 
     /// Number of samples.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// assert_eq!(Column::new(vec![1.0, 2.0], "N")?.len(), 2);
@@ -142,6 +149,7 @@ impl Column {
     }
 
     /// True when there are no samples.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// assert!(Column::new(Vec::new(), "N")?.is_empty());
@@ -163,6 +171,7 @@ impl Column {
     }
 
     /// The values expressed in `unit`.
+    ///
     /// ```
     /// use gaugebook::script::Column;
     /// let c = Column::new(vec![1.0, 2.5], "kN")?;

@@ -6,6 +6,7 @@ use rhai::{Engine, NativeCallContext};
 use super::bind::func;
 
 /// One registered function overload and its reference text.
+///
 /// ```
 /// use gaugebook::script::{build_engine, reference_docs};
 /// let docs = reference_docs(&build_engine(&Default::default()));
@@ -25,6 +26,7 @@ pub struct FnDoc {
 
 impl FnDoc {
     /// The first line of the reference text.
+    ///
     /// ```
     /// let d = gaugebook::script::FnDoc { name: "f".into(), signature: "f()".into(), doc: "Does f.\nMore.".into() };
     /// assert_eq!(d.summary(), "Does f.");

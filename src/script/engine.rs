@@ -34,12 +34,14 @@ const DOMAINS: &[fn(&mut Engine)] = &[
 ];
 
 /// Environment variable naming the stdlib folder (overrides the built-in search).
+///
 /// ```
 /// assert_eq!(gaugebook::script::STDLIB_ENV, "GAUGEBOOK_STDLIB");
 /// ```
 pub const STDLIB_ENV: &str = "GAUGEBOOK_STDLIB";
 
 /// Options for [`build_engine`]; the same as a session's.
+///
 /// ```
 /// let opts = gaugebook::script::EngineOptions::default();
 /// let engine = gaugebook::script::build_engine(&opts);

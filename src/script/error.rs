@@ -54,6 +54,7 @@ impl From<PhysicsError> for Box<EvalAltResult> {
 }
 
 /// One outer call site of an error: where the failing function or module was called from.
+///
 /// ```
 /// use gaugebook::script::{Session, SessionOptions};
 /// let mut s = Session::new(SessionOptions::default())?;

@@ -14,6 +14,7 @@ use crate::MimeBundle;
 
 /// Receives a running script's output.
 /// A sink of our own, counting printed lines:
+///
 /// ```
 /// use std::sync::{Arc, atomic::{AtomicUsize, Ordering}};
 /// use gaugebook::{MimeBundle, script::{OutputSink, Session, SessionOptions}};
@@ -52,6 +53,7 @@ pub trait OutputSink: Send + Sync {
 }
 
 /// Writes to the process's standard output and error; `display` prints `text/plain`.
+///
 /// ```
 /// use gaugebook::script::{Session, SessionOptions, StdSink};
 /// let mut s = Session::new(SessionOptions::default())?;
@@ -89,6 +91,7 @@ impl OutputSink for StdSink {
 }
 
 /// One event recorded by a [`CaptureSink`].
+///
 /// ```
 /// use std::sync::Arc;
 /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
@@ -143,6 +146,7 @@ pub struct CaptureSink {
 
 impl CaptureSink {
     /// Every event so far, in order.
+    ///
     /// ```
     /// use std::sync::Arc;
     /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
@@ -158,6 +162,7 @@ impl CaptureSink {
     }
 
     /// All `print` text so far, concatenated.
+    ///
     /// ```
     /// use std::sync::Arc;
     /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};
@@ -179,6 +184,7 @@ impl CaptureSink {
     }
 
     /// All `debug` text so far, concatenated.
+    ///
     /// ```
     /// use std::sync::Arc;
     /// use gaugebook::script::{CaptureSink, OutputEvent, Session, SessionOptions};

@@ -22,6 +22,7 @@ use crate::MimeBundle;
 /// Where a session looks for modules. Both default to "not set": the stdlib folder is then
 /// found by [`default_stdlib_dir`](super::default_stdlib_dir), and the script folder is the
 /// current directory's files only through absolute paths.
+///
 /// ```
 /// use gaugebook::script::{Session, SessionOptions};
 /// let opts = SessionOptions { stdlib_dir: gaugebook::script::default_stdlib_dir(), script_dir: None };
@@ -38,6 +39,7 @@ pub struct SessionOptions {
 }
 
 /// The result of a cell: its last expression's value as a MIME bundle, or `None` for `()`.
+///
 /// ```
 /// use gaugebook::script::{Session, SessionOptions};
 /// let mut s = Session::new(SessionOptions::default())?;
@@ -53,6 +55,7 @@ pub struct CellOutput {
 }
 
 /// Stops the cell that is running in the session it came from; safe to use from any thread.
+///
 /// ```
 /// use gaugebook::script::{Session, SessionOptions};
 /// let mut s = Session::new(SessionOptions::default())?;
@@ -70,6 +73,7 @@ pub struct InterruptHandle(Arc<AtomicBool>);
 impl InterruptHandle {
     /// Asks the running cell to stop; it ends with an `Interrupted` error within microseconds
     /// of its next script operation, and the session stays usable.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -85,6 +89,7 @@ impl InterruptHandle {
 }
 
 /// Completion candidates for the text between `start` and `end` (character offsets).
+///
 /// ```
 /// use gaugebook::script::{Session, SessionOptions};
 /// let s = Session::new(SessionOptions::default()).unwrap();
@@ -103,6 +108,7 @@ pub struct Completions {
 }
 
 /// Whether a piece of code can run as it is.
+///
 /// ```
 /// use gaugebook::script::{Completeness, Session};
 /// assert_eq!(Session::is_complete("if x > 1 {"), Completeness::Incomplete);
@@ -156,6 +162,7 @@ struct CellMime(MimeBundle);
 impl Session {
     /// A new session with Gaugebook's engine; output goes to standard output until
     /// [`Session::set_output`] is called.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -193,6 +200,7 @@ impl Session {
     }
 
     /// Sends `print`, `debug` and `display` output to `sink` from now on.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -208,6 +216,7 @@ impl Session {
     }
 
     /// A handle that stops the running cell from another thread.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -221,6 +230,7 @@ impl Session {
     }
 
     /// Defines a constant before a script runs (the runner's `--set NAME=VALUE`).
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -235,6 +245,7 @@ impl Session {
     }
 
     /// The engine, for tools that read its metadata.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -249,6 +260,7 @@ impl Session {
     /// Runs one cell. Variables, functions and top-level imports persist into later cells; the
     /// last expression's value is the result. A failed cell keeps the state from before it
     /// (variables it assigned before failing stay assigned), and its functions are dropped.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -373,6 +385,7 @@ impl Session {
     /// and properties after `.`, variables, unit constants, members after `module::`, unit
     /// symbols inside the string of `q("…")`, `.to("…")`, `.value("…")`, and module names inside
     /// `import "…"`.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
@@ -388,6 +401,7 @@ impl Session {
 
     /// The reference text of the function, variable or module under (or just before) the
     /// cursor (a character offset), as markdown.
+    ///
     /// ```
     /// use gaugebook::script::{Session, SessionOptions};
     /// let mut s = Session::new(SessionOptions::default())?;
