@@ -237,14 +237,7 @@ mod tests {
     #[test]
     fn inverse_round_trips_every_arrangement() {
         // Closed-form identity: output() then the bulk inverse returns the strain.
-        for a in [
-            Arrangement::Quarter,
-            Arrangement::HalfBending,
-            Arrangement::HalfPoisson,
-            Arrangement::FullBending,
-            Arrangement::FullPoisson,
-            Arrangement::FullShear,
-        ] {
+        for a in Arrangement::ALL {
             let strains = [-3000.0, -10.0, 0.0, 250.0, 5000.0];
             let r: Vec<f64> = strains
                 .iter()

@@ -309,7 +309,7 @@ async fn abort_queued(socket: &mut RouterSocket, kernel: &Kernel, channel: Chann
                 json!({"status": "aborted", "execution_count": count}),
             ))
         } else {
-            Box::pin(kernel.handle(&msg, channel)).await
+            kernel.handle(&msg, channel).await
         };
         if let Some(reply) = reply {
             send(socket, kernel, &reply).await;
