@@ -321,6 +321,103 @@ fn errors_deep_in_the_file_name_the_right_row_across_blocks() {
     );
 }
 
+#[test]
+fn a_stray_carriage_return_inside_a_line_is_not_a_number() {
+    let d = tempfile::tempdir().unwrap();
+    let p = write(d.path(), "cr.csv", "a,b\n1,2\n3\r4,5\n");
+    let e = err(&p, &LogOptions::new());
+    assert!(
+        matches!(&e, DataError::NotANumber { row: 3, column: 1, .. }),
+        "{e}"
+    );
+}
+
+// ---------------------------------------------------------------------------------------------
+// Field forms (policy: whatever Rust's `f64::from_str` reads, after trimming white space and
+// surrounding quotes; lines end in LF or CR LF; separators `,` `;` or tab from the header)
+
+#[test]
+fn numbers_in_every_written_form_read_as_the_standard_parser_reads_them() {
+    let d = tempfile::tempdir().unwrap();
+    let fields = [
+        "1.5", "-0.000", "+2", "1e-3", "-4.2E+2", " 7.25 ", "\"8.5\"", ".5", "5.", "0.1",
+        "123456789012345678901234", "9007199254740993", "1.7976931348623157e308",
+    ];
+    let mut text = String::from("x;y\r\n");
+    for f in fields {
+        text.push_str(&format!("{f};1\r\n"));
+    }
+    let p = write(d.path(), "forms.csv", &text);
+    let log = read_log(&p, &LogOptions::new()).unwrap();
+    let got = &log.channel("x").unwrap().values;
+    // The reference is Rust's own correctly rounded parser (core::num::dec2flt).
+    let want: Vec<f64> = fields
+        .iter()
+        .map(|f| f.trim().trim_matches('"').parse::<f64>().unwrap())
+        .collect();
+    let bits = |v: &[f64]| v.iter().map(|x| x.to_bits()).collect::<Vec<_>>();
+    assert_eq!(bits(got), bits(&want));
+    assert_eq!(log.channel("y").unwrap().values, vec![1.0; fields.len()]);
+}
+
+#[test]
+fn a_generated_log_reads_bit_for_bit_as_the_standard_parser_reads_it() {
+    // Decimals of 0 to 9 fraction digits and up to 12 integer digits, both signs, across many
+    // 4 KiB blocks (so lines are cut at block ends too), against `f64::from_str`.
+    let d = tempfile::tempdir().unwrap();
+    let mut s: u64 = 7;
+    let mut next = || {
+        // Knuth's MMIX linear congruential constants (from memory): variety, not quality.
+        s = s
+            .wrapping_mul(6_364_136_223_846_793_005)
+            .wrapping_add(1_442_695_040_888_963_407);
+        s >> 16
+    };
+    let mut text = String::from("a,b,c\n");
+    let mut want = [Vec::new(), Vec::new(), Vec::new()];
+    for _ in 0..30_000 {
+        for (k, w) in want.iter_mut().enumerate() {
+            let frac = (next() % 10) as usize;
+            let int = next() % 10u64.pow((next() % 13) as u32);
+            let mut f = if next() % 2 == 0 { format!("-{int}") } else { int.to_string() };
+            if frac > 0 {
+                f.push('.');
+                for _ in 0..frac {
+                    f.push(char::from(b'0' + (next() % 10) as u8));
+                }
+            }
+            w.push(f.parse::<f64>().unwrap());
+            text.push_str(&f);
+            text.push(if k == 2 { '\n' } else { ',' });
+        }
+    }
+    let p = write(d.path(), "gen.csv", &text);
+    let opts = LogOptions {
+        block_bytes: 4096,
+        ..LogOptions::new()
+    };
+    let log = read_log(&p, &opts).unwrap();
+    for (name, w) in ["a", "b", "c"].iter().zip(&want) {
+        let got = &log.channel(name).unwrap().values;
+        assert_eq!(got.len(), w.len());
+        let diff = got.iter().zip(w).position(|(g, w)| g.to_bits() != w.to_bits());
+        assert_eq!(diff, None, "column {name}");
+    }
+}
+
+#[test]
+fn tab_and_semicolon_separators_and_a_last_line_without_its_line_end() {
+    let d = tempfile::tempdir().unwrap();
+    for (name, text) in [
+        ("tab.csv", "t\tv\n0\t1.5\n1\t2.5"),
+        ("semi.csv", "t;v\r\n0;1.5\r\n1;2.5"),
+    ] {
+        let p = write(d.path(), name, text);
+        let log = read_log(&p, &LogOptions::new()).unwrap();
+        assert_eq!(log.channel("v").unwrap().values, vec![1.5, 2.5], "{name}");
+    }
+}
+
 // ---------------------------------------------------------------------------------------------
 // Reading
 

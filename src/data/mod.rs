@@ -1,5 +1,5 @@
-//! Test logs: import of CSV and Parquet through polars (only the kept columns, block by block),
-//! units from column headers, the time axis with its sample rate and gaps, channel metadata,
+//! Test logs: import of CSV (read field by field) and Parquet (through polars), only the kept
+//! columns, block by block; units from column headers, the time axis with its sample rate and gaps, channel metadata,
 //! conversion to strain and load, zero, drift and temperature compensation, and atomic export.
 //!
 //! Values are held as owned `Vec<f64>` in the unit written in the file; conversions are pure
@@ -7,6 +7,8 @@
 
 mod bridge_signal;
 mod calibration;
+mod csv_lines;
+mod decimal;
 mod error;
 mod export;
 mod fixed;

@@ -2,23 +2,22 @@
 //! whatever the caller does with this one, and memory beyond the kept columns stays within a
 //! few blocks.
 //!
-//! A CSV file is cut at line ends into blocks of about [`LogOptions::block_bytes`]; polars parses
-//! each block with a fixed schema (every kept column `f64`, so text in a number column is an
-//! error rather than a silently inferred text column) and a projection onto the kept columns. A
-//! Parquet file is read in row slices with the kept columns only. When polars reports a problem
-//! or leaves a null, the block is scanned again line by line to name the row and column.
+//! A CSV file is cut at line ends into blocks of about [`LogOptions::block_bytes`], and each
+//! block is read field by field into the kept columns (see `csv_lines`: every kept column is a
+//! number, so text in one is an error naming its row and column, not a silently inferred text
+//! column). A Parquet file is read through polars in row slices with the kept columns only.
 
 use std::fs::File;
-use std::io::{Cursor, Read};
+use std::io::Read;
 use std::path::Path;
-use std::sync::Arc;
 use std::sync::mpsc::{Receiver, SyncSender, sync_channel};
 use std::thread::JoinHandle;
 
 use polars::prelude::*;
 
 use super::plan::{ColumnPlan, Plan, make_plan, seconds};
-use super::time::{parse_timestamp, parse_timestamp_parts};
+use super::csv_lines::LineFormat;
+use super::time::parse_timestamp_parts;
 use super::{Channel, ChannelMeta, DataError, Log, LogFormat, LogOptions, Progress, SkippedRow};
 
 /// One block of samples from a [`LogStream`], columns in the order of the stream's layout.
@@ -509,15 +508,19 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
 
 fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
     let path = s.plan.path.clone();
-    let mut carry = std::mem::take(&mut s.rest);
+    let format = LineFormat::new(&s.plan, s.sep, s.t0);
+    // One text buffer for the whole file: the unfinished last line of a block moves to its
+    // front, so the file is read into the same pages again (fresh pages for every block cost
+    // a page fault each, a measurable share of the reading time).
+    let mut buf = std::mem::take(&mut s.rest);
     let mut next_row = 2usize;
     let mut done = s.header_bytes;
     let mut last_time: Option<(f64, usize)> = None;
-    let schema = csv_schema(&s.plan);
+    let mut carried = buf.len();
     loop {
-        let mut block = std::mem::take(&mut carry);
-        let want = s.plan.block_bytes.saturating_sub(block.len()).max(4096);
-        let got = match read_some(&mut s.file, &mut block, want, &path) {
+        buf.truncate(carried);
+        let want = s.plan.block_bytes.saturating_sub(carried).max(4096);
+        let got = match read_some(&mut s.file, &mut buf, want, &path) {
             Ok(g) => g,
             Err(e) => {
                 let _ = tx.send(Err(e));
@@ -525,204 +528,59 @@ fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
             }
         };
         let at_end = got < want;
-        if block.is_empty() {
+        if buf.is_empty() {
             return;
         }
-        if !at_end {
-            match block.iter().rposition(|&b| b == b'\n') {
-                Some(p) => carry = block.split_off(p + 1),
+        let whole = if at_end {
+            buf.len()
+        } else {
+            match memchr::memrchr(b'\n', &buf) {
+                Some(p) => p + 1,
                 // One line longer than a block: keep reading until it ends.
                 None => {
-                    carry = block;
+                    carried = buf.len();
                     continue;
                 }
             }
-        }
-        done += block.len() as u64;
-        let scan = scan_lines(&block);
-        let lines = scan.lines;
-        let result =
-            parse_block(&s, &schema, &block, &scan, next_row, &mut last_time).map(|mut c| {
-                c.done = done;
-                c
-            });
-        next_row += lines;
+        };
+        done += whole as u64;
+        let result = read_block(&s.plan, &format, &buf[..whole], next_row, &mut last_time);
+        let result = result.map(|(mut c, lines)| {
+            next_row += lines;
+            c.done = done;
+            c
+        });
         let failed = result.is_err();
         if tx.send(result).is_err() || failed || at_end {
             return;
         }
+        buf.copy_within(whole.., 0);
+        carried = buf.len() - whole;
     }
 }
 
-/// What one pass over a block's line ends finds: the number of lines (a last line without a
-/// line end counts) and whether any line is blank.
-struct LineScan {
-    lines: usize,
-    any_blank: bool,
-}
-
-/// Counts lines and looks for blank ones with memchr's vectorised search for line ends: a line
-/// can only be blank when it starts with whitespace, so only those are looked at closely. (A
-/// byte-by-byte split was a sixth of the reading time.)
-fn scan_lines(block: &[u8]) -> LineScan {
-    let blank_from = |start: usize| {
-        let end = memchr::memchr(b'\n', &block[start..]).map_or(block.len(), |k| start + k);
-        is_blank(&block[start..end])
-    };
-    let starts_blank = |start: usize| match block.get(start) {
-        None => false,
-        Some(b) => b.is_ascii_whitespace() && blank_from(start),
-    };
-    let mut lines = 0;
-    let mut any_blank = starts_blank(0) || block.first() == Some(&b'\n');
-    for p in memchr::memchr_iter(b'\n', block) {
-        lines += 1;
-        if !any_blank && p + 1 < block.len() && starts_blank(p + 1) {
-            any_blank = true;
-        }
-    }
-    if block.last().is_some_and(|&b| b != b'\n') {
-        lines += 1;
-    }
-    LineScan { lines, any_blank }
-}
-
-/// The block without blank lines and the file row of each remaining line, or `None`s when the
-/// block has no blank line (the common case: no copy).
-fn drop_blank_lines(
+/// One block of whole lines into a chunk, and the number of lines it held.
+fn read_block(
+    plan: &Plan,
+    format: &LineFormat,
     block: &[u8],
-    scan: &LineScan,
-    first_row: usize,
-) -> (Option<Vec<u8>>, Option<Vec<usize>>) {
-    if !scan.any_blank {
-        return (None, None);
-    }
-    let body = block.strip_suffix(b"\n").unwrap_or(block);
-    let blank = |l: &[u8]| l.first().is_none_or(|b| b.is_ascii_whitespace()) && is_blank(l);
-    let mut out = Vec::with_capacity(block.len());
-    let mut rows = Vec::new();
-    for (k, line) in body.split(|&b| b == b'\n').enumerate() {
-        if !blank(line) {
-            out.extend_from_slice(line);
-            out.push(b'\n');
-            rows.push(first_row + k);
-        }
-    }
-    (Some(out), Some(rows))
-}
-
-fn col_name(i: usize) -> PlSmallStr {
-    PlSmallStr::from(format!("c{i}"))
-}
-
-fn csv_schema(plan: &Plan) -> SchemaRef {
-    let fields = (0..plan.headers.len()).map(|i| {
-        let dtype = match plan.kept().find(|c| c.index == i) {
-            Some(c) if c.timestamp => DataType::String,
-            Some(_) => DataType::Float64,
-            None => DataType::String,
-        };
-        Field::new(col_name(i), dtype)
-    });
-    Arc::new(Schema::from_iter(fields))
-}
-
-fn parse_block(
-    s: &CsvSetup,
-    schema: &SchemaRef,
-    block: &[u8],
-    scan: &LineScan,
     first_row: usize,
     last_time: &mut Option<(f64, usize)>,
-) -> Result<LogChunk, DataError> {
-    let lines = scan.lines;
-    let plan = &s.plan;
-    let path = &plan.path;
-    let mut projection: Vec<usize> = plan.kept().map(|c| c.index).collect();
-    projection.sort_unstable();
-    let options = CsvReadOptions::default()
-        .with_has_header(false)
-        .with_schema(Some(schema.clone()))
-        .with_projection(Some(Arc::new(projection)))
-        .with_raise_if_empty(false)
-        .map_parse_options(|p| p.with_separator(s.sep));
-    // Policy: blank lines are not rows (polars would read them as rows of nulls). A block with
-    // any is parsed from a copy without them, and the file row of each sample is kept.
-    let (compact, rows) = drop_blank_lines(block, scan, first_row);
-    let text: &[u8] = compact.as_deref().unwrap_or(block);
-    let df = options
-        .into_reader_with_file_handle(Cursor::new(text))
-        .finish();
-    let df = match df {
-        Ok(df) => df,
-        Err(e) => {
-            return Err(
-                locate(s, block, first_row).unwrap_or_else(|| DataError::Engine {
-                    path: path.clone(),
-                    reason: format!(
-                        "rows {first_row} to {}: {e}",
-                        first_row + lines.saturating_sub(1)
-                    ),
-                }),
-            );
-        }
-    };
-    let height = df.height();
-    let row_of = |i: usize| rows.as_ref().map_or(first_row + i, |r| r[i]);
-    let engine = |e: PolarsError| DataError::Engine {
-        path: path.clone(),
-        reason: e.to_string(),
-    };
-
-    let extract = |c: &ColumnPlan| -> Result<Vec<f64>, DataError> {
-        let col = df.column(&col_name(c.index)).map_err(engine)?;
-        if col.null_count() > 0 {
-            return Err(
-                locate(s, block, first_row).unwrap_or_else(|| DataError::Engine {
-                    path: path.clone(),
-                    reason: format!("column {} `{}` has an empty value", c.column(), c.header),
-                }),
-            );
-        }
-        if c.timestamp {
-            let ca = col.str().map_err(engine)?;
-            let mut out = Vec::with_capacity(height);
-            let texts = ca.downcast_iter().flat_map(|arr| arr.iter());
-            for (i, v) in texts.enumerate() {
-                let text = v.unwrap_or("");
-                match parse_timestamp_parts(text) {
-                    Some((w, f)) => out.push((w - s.t0.0) as f64 + (f - s.t0.1)),
-                    None => {
-                        return Err(DataError::BadTimestamp {
-                            path: path.clone(),
-                            row: row_of(i),
-                            column: c.column(),
-                            name: c.header.clone(),
-                            found: text.chars().take(40).collect(),
-                        });
-                    }
-                }
-            }
-            return Ok(out);
-        }
-        let ca = col.f64().map_err(engine)?;
-        let mut out = Vec::with_capacity(height);
-        for arr in ca.downcast_iter() {
-            out.extend_from_slice(arr.values());
-        }
-        Ok(out)
-    };
-    let mut time = plan.time.as_ref().map(&extract).transpose()?;
-    let mut channels: Vec<Vec<f64>> = plan
-        .channels
-        .iter()
-        .map(&extract)
-        .collect::<Result<_, _>>()?;
-    drop(df);
-
+) -> Result<(LogChunk, usize), DataError> {
+    // About 60 bytes make a line of a typical log; reserving for it avoids regrowing.
+    let guess = block.len() / 32 + 16;
+    let mut columns: Vec<Vec<f64>> = (0..format.outputs())
+        .map(|_| Vec::with_capacity(guess))
+        .collect();
+    let read = format.read(block, first_row, &mut columns)?;
+    let mut time = None;
+    let mut channels = columns;
+    if plan.time.is_some() {
+        time = Some(channels.remove(0));
+    }
     let mut chunk = LogChunk {
         first_row,
-        rows,
+        rows: read.rows,
         time: None,
         channels: Vec::new(),
         skipped: Vec::new(),
@@ -731,7 +589,7 @@ fn parse_block(
     finish_chunk(plan, &mut chunk, &mut time, &mut channels, last_time)?;
     chunk.time = time;
     chunk.channels = channels;
-    Ok(chunk)
+    Ok((chunk, read.lines))
 }
 
 /// Non-finite values (error or skip), then time order; shared by CSV and Parquet.
@@ -817,57 +675,6 @@ fn chunk_len(time: &Option<Vec<f64>>, channels: &[Vec<f64>]) -> usize {
         .map(Vec::len)
         .or_else(|| channels.first().map(Vec::len))
         .unwrap_or(0)
-}
-
-/// Finds the first line of a block that polars could not read, and says why, the way a person
-/// would check it: field count, then each kept number.
-fn locate(s: &CsvSetup, block: &[u8], first_row: usize) -> Option<DataError> {
-    let plan = &s.plan;
-    let path = &plan.path;
-    let expected = plan.headers.len();
-    for (k, line) in block.split(|&b| b == b'\n').enumerate() {
-        if is_blank(line) {
-            continue;
-        }
-        let row = first_row + k;
-        let fields = split_fields(line, s.sep);
-        if fields.len() != expected {
-            return Some(DataError::Ragged {
-                path: path.clone(),
-                row,
-                expected,
-                found: fields.len(),
-            });
-        }
-        for c in plan.kept() {
-            let f = fields[c.index];
-            let text = String::from_utf8_lossy(f);
-            let ok = if c.timestamp {
-                parse_timestamp(&text).is_some()
-            } else {
-                text.parse::<f64>().is_ok()
-            };
-            if !ok {
-                if c.timestamp {
-                    return Some(DataError::BadTimestamp {
-                        path: path.clone(),
-                        row,
-                        column: c.column(),
-                        name: c.header.clone(),
-                        found: short(f),
-                    });
-                }
-                return Some(DataError::NotANumber {
-                    path: path.clone(),
-                    row,
-                    column: c.column(),
-                    name: c.header.clone(),
-                    found: short(f),
-                });
-            }
-        }
-    }
-    None
 }
 
 // ---------------------------------------------------------------------------------------------
