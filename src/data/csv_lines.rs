@@ -36,14 +36,6 @@ pub(crate) struct LineFormat {
     plan: Plan,
 }
 
-/// The columns read from a block, and the file row of every sample when blank lines made them
-/// not consecutive.
-pub(crate) struct ReadLines {
-    pub rows: Option<Vec<usize>>,
-    /// Lines in the block, blank ones included (so the next block's first row follows).
-    pub lines: usize,
-}
-
 impl LineFormat {
     pub(crate) fn new(plan: &Plan, sep: u8, t0: (i64, f64)) -> LineFormat {
         let mut roles = vec![Role::Skip; plan.headers.len()];
@@ -69,12 +61,13 @@ impl LineFormat {
 
     /// Reads every line of `block` (whole lines; the last may lack its line end) into `out`,
     /// one vector per kept column, appending. `first_row` is the file row of the first line.
+    /// Returns the file row of every sample when blank lines made them not consecutive.
     pub(crate) fn read(
         &self,
         block: &[u8],
         first_row: usize,
         out: &mut [Vec<f64>],
-    ) -> Result<ReadLines, DataError> {
+    ) -> Result<Option<Vec<usize>>, DataError> {
         let n = block.len();
         let sep = self.sep;
         let fields = self.roles.len();
@@ -145,7 +138,7 @@ impl LineFormat {
                 r.push(row);
             }
         }
-        Ok(ReadLines { rows, lines: line })
+        Ok(rows)
     }
 
     /// A field the fast path did not take: trimmed of white space and surrounding quotes, then

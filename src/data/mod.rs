@@ -7,6 +7,7 @@
 
 mod bridge_signal;
 mod calibration;
+mod csv_blocks;
 mod csv_lines;
 mod decimal;
 mod error;

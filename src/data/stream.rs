@@ -8,7 +8,6 @@
 //! column). A Parquet file is read through polars in row slices with the kept columns only.
 
 use std::fs::File;
-use std::io::Read;
 use std::path::Path;
 use std::sync::mpsc::{Receiver, SyncSender, sync_channel};
 use std::thread::JoinHandle;
@@ -16,7 +15,7 @@ use std::thread::JoinHandle;
 use polars::prelude::*;
 
 use super::plan::{ColumnPlan, Plan, make_plan, seconds};
-use super::csv_lines::LineFormat;
+use super::csv_blocks::{CsvSetup, read_blocks, read_some};
 use super::time::parse_timestamp_parts;
 use super::{Channel, ChannelMeta, DataError, Log, LogFormat, LogOptions, Progress, SkippedRow};
 
@@ -362,33 +361,6 @@ fn is_blank(line: &[u8]) -> bool {
     line.iter().all(|b| b.is_ascii_whitespace())
 }
 
-struct CsvSetup {
-    plan: Plan,
-    sep: u8,
-    /// Bytes after the header line that were read while looking at the header.
-    rest: Vec<u8>,
-    file: File,
-    header_bytes: u64,
-    /// The first timestamp (whole seconds, fraction) when the time column holds timestamps.
-    t0: (i64, f64),
-}
-
-fn read_some(
-    file: &mut File,
-    buf: &mut Vec<u8>,
-    want: usize,
-    path: &Path,
-) -> Result<usize, DataError> {
-    // `take` + `read_to_end` reads into the spare capacity without zero-filling it first, and
-    // retries on `Interrupted`.
-    let start = buf.len();
-    buf.reserve(want);
-    let mut part = Read::by_ref(file).take(want as u64);
-    part.read_to_end(buf)
-        .map_err(|e| DataError::io(path, "cannot read", e))?;
-    Ok(buf.len() - start)
-}
-
 fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
     let mut file = File::open(path).map_err(|e| DataError::io(path, "cannot open", e))?;
     let total = file.metadata().map(|m| m.len()).unwrap_or(0);
@@ -495,7 +467,7 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
     let (tx, rx) = sync_channel(1);
     let worker = std::thread::Builder::new()
         .name("gaugebook-log-reader".into())
-        .spawn(move || csv_worker(setup, tx))
+        .spawn(move || read_blocks(setup, tx))
         .map_err(|e| DataError::io(path, "cannot start the reading thread", e))?;
     Ok(LogStream {
         layout: log,
@@ -506,99 +478,13 @@ fn open_csv(path: &Path, opts: &LogOptions) -> Result<LogStream, DataError> {
     })
 }
 
-fn csv_worker(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataError>>) {
-    let path = s.plan.path.clone();
-    let format = LineFormat::new(&s.plan, s.sep, s.t0);
-    // One text buffer for the whole file: the unfinished last line of a block moves to its
-    // front, so the file is read into the same pages again (fresh pages for every block cost
-    // a page fault each, a measurable share of the reading time).
-    let mut buf = std::mem::take(&mut s.rest);
-    let mut next_row = 2usize;
-    let mut done = s.header_bytes;
-    let mut last_time: Option<(f64, usize)> = None;
-    let mut carried = buf.len();
-    loop {
-        buf.truncate(carried);
-        let want = s.plan.block_bytes.saturating_sub(carried).max(4096);
-        let got = match read_some(&mut s.file, &mut buf, want, &path) {
-            Ok(g) => g,
-            Err(e) => {
-                let _ = tx.send(Err(e));
-                return;
-            }
-        };
-        let at_end = got < want;
-        if buf.is_empty() {
-            return;
-        }
-        let whole = if at_end {
-            buf.len()
-        } else {
-            match memchr::memrchr(b'\n', &buf) {
-                Some(p) => p + 1,
-                // One line longer than a block: keep reading until it ends.
-                None => {
-                    carried = buf.len();
-                    continue;
-                }
-            }
-        };
-        done += whole as u64;
-        let result = read_block(&s.plan, &format, &buf[..whole], next_row, &mut last_time);
-        let result = result.map(|(mut c, lines)| {
-            next_row += lines;
-            c.done = done;
-            c
-        });
-        let failed = result.is_err();
-        if tx.send(result).is_err() || failed || at_end {
-            return;
-        }
-        buf.copy_within(whole.., 0);
-        carried = buf.len() - whole;
-    }
-}
-
-/// One block of whole lines into a chunk, and the number of lines it held.
-fn read_block(
-    plan: &Plan,
-    format: &LineFormat,
-    block: &[u8],
-    first_row: usize,
-    last_time: &mut Option<(f64, usize)>,
-) -> Result<(LogChunk, usize), DataError> {
-    // About 60 bytes make a line of a typical log; reserving for it avoids regrowing.
-    let guess = block.len() / 32 + 16;
-    let mut columns: Vec<Vec<f64>> = (0..format.outputs())
-        .map(|_| Vec::with_capacity(guess))
-        .collect();
-    let read = format.read(block, first_row, &mut columns)?;
-    let mut time = None;
-    let mut channels = columns;
-    if plan.time.is_some() {
-        time = Some(channels.remove(0));
-    }
-    let mut chunk = LogChunk {
-        first_row,
-        rows: read.rows,
-        time: None,
-        channels: Vec::new(),
-        skipped: Vec::new(),
-        done: 0,
-    };
-    finish_chunk(plan, &mut chunk, &mut time, &mut channels, last_time)?;
-    chunk.time = time;
-    chunk.channels = channels;
-    Ok((chunk, read.lines))
-}
-
-/// Non-finite values (error or skip), then time order; shared by CSV and Parquet.
-fn finish_chunk(
+/// Non-finite values: an error naming the first, or (under `skip_nan`) the rows dropped and
+/// listed; shared by CSV and Parquet.
+pub(super) fn drop_non_finite(
     plan: &Plan,
     chunk: &mut LogChunk,
     time: &mut Option<Vec<f64>>,
     channels: &mut [Vec<f64>],
-    last_time: &mut Option<(f64, usize)>,
 ) -> Result<(), DataError> {
     let path = &plan.path;
     let cols: Vec<(&ColumnPlan, &Vec<f64>)> = plan
@@ -648,24 +534,37 @@ fn finish_chunk(
         chunk.first_row = rows.first().copied().unwrap_or(chunk.first_row);
         chunk.rows = Some(rows);
     }
-    if let (Some(tp), Some(t)) = (plan.time.as_ref(), time.as_ref()) {
-        let mut prev = *last_time;
-        for (i, &v) in t.iter().enumerate() {
-            if let Some((p, _)) = prev
-                && v <= p
-            {
-                return Err(DataError::TimeNotIncreasing {
-                    path: path.clone(),
-                    row: chunk.row(i),
-                    column: tp.column(),
-                    name: tp.header.clone(),
-                    previous: p,
-                    found: v,
-                });
-            }
-            prev = Some((v, chunk.row(i)));
+    Ok(())
+}
+
+/// Time must rise from sample to sample, across chunks too (`last` is the previous chunk's
+/// last time and row); shared by CSV and Parquet, called on chunks in file order.
+pub(super) fn check_time_order(
+    plan: &Plan,
+    chunk: &LogChunk,
+    last: &mut Option<(f64, usize)>,
+) -> Result<(), DataError> {
+    let (Some(tp), Some(t)) = (plan.time.as_ref(), chunk.time.as_ref()) else {
+        return Ok(());
+    };
+    let mut prev = last.map(|(v, _)| v);
+    for (i, &v) in t.iter().enumerate() {
+        if let Some(p) = prev
+            && v <= p
+        {
+            return Err(DataError::TimeNotIncreasing {
+                path: plan.path.clone(),
+                row: chunk.row(i),
+                column: tp.column(),
+                name: tp.header.clone(),
+                previous: p,
+                found: v,
+            });
         }
-        *last_time = prev;
+        prev = Some(v);
+    }
+    if let Some(&v) = t.last() {
+        *last = Some((v, chunk.row(t.len() - 1)));
     }
     Ok(())
 }
@@ -780,8 +679,9 @@ fn parquet_slice(
         skipped: Vec::new(),
         done: (offset + len) as u64,
     };
-    finish_chunk(plan, &mut chunk, &mut time, &mut channels, last_time)?;
+    drop_non_finite(plan, &mut chunk, &mut time, &mut channels)?;
     chunk.time = time;
     chunk.channels = channels;
+    check_time_order(plan, &chunk, last_time)?;
     Ok(chunk)
 }
