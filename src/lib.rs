@@ -25,8 +25,8 @@ pub mod units;
 // Signal processing, statistics and fatigue counting (issue 6).
 mod signal;
 pub use signal::{
-    Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, MAX_FILTER_ORDER, Ramp, RangeBin,
-    SnCurve, SosFilter, StreamingBank, StreamingFilter, Summary, counts_by_range, decimate,
+    Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, LineFit, MAX_FILTER_ORDER, Ramp,
+    RangeBin, RunningLine, RunningSummary, SnCurve, SosFilter, StreamingBank, StreamingFilter, Summary, counts_by_range, decimate,
     decimation_filter, find_holds, find_ramps, miner_damage, moving_average, rainflow_cycles,
     range_histogram, resample_linear, reversals, rising_crossings, summarize, summarize_windows,
     uniform_times,

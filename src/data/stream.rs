@@ -140,6 +140,47 @@ impl LogStream {
         self.total
     }
 
+    /// The next block as a [`Log`] of its own: the layout's channels holding this block's
+    /// values, with the step, rate and gaps of its time axis found within the block. `None`
+    /// after the last block or an error.
+    ///
+    /// ```
+    /// use gaugebook::{LogOptions, open_log};
+    /// let dir = tempfile::tempdir()?;
+    /// let path = dir.path().join("a.csv");
+    /// std::fs::write(&path, "time_s,load [kN]\n0,1\n0.5,2\n1.0,3\n")?;
+    /// let mut stream = open_log(&path, &LogOptions::new())?;
+    /// let block = stream.next_block().unwrap()?;
+    /// assert_eq!(block.channel("load").unwrap().values, vec![1.0, 2.0, 3.0]);
+    /// assert_eq!(block.time.as_ref().unwrap().sample_rate_hz, 2.0);
+    /// assert!(stream.next_block().is_none());
+    /// # Ok::<(), Box<dyn std::error::Error>>(())
+    /// ```
+    pub fn next_block(&mut self) -> Option<Result<Log, DataError>> {
+        let chunk = match self.next()? {
+            Ok(c) => c,
+            Err(e) => return Some(Err(e)),
+        };
+        let mut log = self.layout.clone();
+        let LogChunk {
+            first_row,
+            rows,
+            time,
+            channels,
+            skipped,
+            ..
+        } = chunk;
+        if let (Some(t), Some(v)) = (log.time.as_mut(), time) {
+            t.channel.values = v;
+        }
+        for (c, v) in log.channels.iter_mut().zip(channels) {
+            c.values = v;
+        }
+        log.skipped = skipped;
+        super::timebase::analyse_from(&mut log, rows.as_deref(), self.plan.gap_factor, first_row);
+        Some(Ok(log))
+    }
+
     fn stop(&mut self) -> Option<DataError> {
         self.rx = None;
         let handle = self.worker.take()?;

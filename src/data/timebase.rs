@@ -8,6 +8,11 @@ use crate::Dimension;
 /// are not consecutive.
 pub(crate) fn analyse(log: &mut Log, rows: Option<&[usize]>, gap_factor: f64) {
     let base = first_data_row(log.format);
+    analyse_from(log, rows, gap_factor, base);
+}
+
+/// [`analyse`] for samples whose first lies on file row `base` (a block of a longer log).
+pub(crate) fn analyse_from(log: &mut Log, rows: Option<&[usize]>, gap_factor: f64, base: usize) {
     let Some(t) = log.time.as_mut() else { return };
     let values = &t.channel.values;
     let Some(step) = median_step(values) else {

@@ -805,6 +805,56 @@ pub(crate) fn register(engine: &mut Engine) {
     );
 
     func(
+        "concat",
+        &["columns: Array"],
+        "Column",
+        r#"
+        The columns one after the other (blocks of a record joined back together); all must have
+        one dimension, and the result shows in the first one's unit.
+        ```rhai
+        let c = concat([column([1.0, 2.0], "kN"), column([3000.0], "N")]);
+        assert_eq(c.values("kN"), [1.0, 2.0, 3.0]);
+        ```
+    "#,
+    )
+    .register_into_engine(engine, |cols: Array| -> ScriptResult<Column> {
+        let mut parts = Vec::with_capacity(cols.len());
+        for (i, v) in cols.iter().enumerate() {
+            let c = v.read_lock::<Column>().ok_or_else(|| {
+                fault(
+                    "ArgumentError",
+                    format!("item {i} of concat() must be a Column, found {}", type_of(v)),
+                )
+            })?;
+            parts.push(c.clone());
+        }
+        let Some(first) = parts.first() else {
+            return Err(fault("ArgumentError", "concat() needs at least one column"));
+        };
+        if let Some((i, c)) = parts
+            .iter()
+            .enumerate()
+            .find(|(_, c)| c.dim != first.dim || c.kind != first.kind)
+        {
+            return Err(fault(
+                "UnitError",
+                format!(
+                    "item {i} of concat() is a column of {}, item 0 one of {}",
+                    c.dim, first.dim
+                ),
+            ));
+        }
+        let mut data = Vec::with_capacity(parts.iter().map(Column::len).sum());
+        for c in &parts {
+            data.extend_from_slice(&c.data);
+        }
+        Ok(Column {
+            data: Arc::new(data),
+            ..first.clone()
+        })
+    });
+
+    func(
         "sum",
         &["column: Column"],
         "Quantity",

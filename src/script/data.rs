@@ -50,7 +50,7 @@ pub(crate) fn script_dir_tag(dir: Option<&Path>) -> Dynamic {
 }
 
 /// A script path made absolute against the script's folder (see the module text).
-fn resolve(ctx: &NativeCallContext, path: &str) -> PathBuf {
+pub(super) fn resolve(ctx: &NativeCallContext, path: &str) -> PathBuf {
     let p = PathBuf::from(path);
     if p.is_absolute() {
         return p;
@@ -112,7 +112,7 @@ pub(crate) struct Frame {
 }
 
 impl Frame {
-    fn from_log(log: crate::Log) -> Frame {
+    pub(super) fn from_log(log: crate::Log) -> Frame {
         let rows = log.rows();
         let crate::Log {
             path,
@@ -387,8 +387,7 @@ fn strings(x: &Dynamic, what: &str) -> ScriptResult<Vec<String>> {
         .collect()
 }
 
-fn log_options(map: &Map) -> ScriptResult<LogOptions> {
-    let name = "read_log()";
+pub(super) fn log_options(map: &Map, name: &str) -> ScriptResult<LogOptions> {
     let o = Options::new(
         map,
         name,
@@ -399,18 +398,19 @@ fn log_options(map: &Map) -> ScriptResult<LogOptions> {
             "skip_nan",
             "separator",
             "gap_factor",
+            "block_bytes",
         ],
     )?;
     let mut opts = LogOptions::new();
     if let Some(c) = o.raw("columns") {
-        opts = opts.keep(strings(c, "key `columns` in options of read_log()")?);
+        opts = opts.keep(strings(c, &format!("key `columns` in options of {name}"))?);
     }
     if let Some(u) = o.raw("units") {
         let m = u.read_lock::<Map>().ok_or_else(|| {
             fault(
                 "ArgumentError",
                 format!(
-                    "key `units` in options of read_log() must be a map of column to unit text, found {}",
+                    "key `units` in options of {name} must be a map of column to unit text, found {}",
                     type_of(u)
                 ),
             )
@@ -420,7 +420,7 @@ fn log_options(map: &Map) -> ScriptResult<LogOptions> {
                 fault(
                     "ArgumentError",
                     format!(
-                        "unit of `{k}` in options of read_log() must be a string, found {}",
+                        "unit of `{k}` in options of {name} must be a string, found {}",
                         type_of(v)
                     ),
                 )
@@ -437,7 +437,7 @@ fn log_options(map: &Map) -> ScriptResult<LogOptions> {
             return Err(fault(
                 "ArgumentError",
                 format!(
-                    "key `time` in options of read_log() must be a column name, true (find it) or false (none), found {}",
+                    "key `time` in options of {name} must be a column name, true (find it) or false (none), found {}",
                     type_of(t)
                 ),
             ));
@@ -453,7 +453,7 @@ fn log_options(map: &Map) -> ScriptResult<LogOptions> {
                 return Err(fault(
                     "ArgumentError",
                     format!(
-                        "key `separator` in options of read_log() must be one character, found \"{s}\""
+                        "key `separator` in options of {name} must be one character, found \"{s}\""
                     ),
                 ));
             }
@@ -463,10 +463,21 @@ fn log_options(map: &Map) -> ScriptResult<LogOptions> {
         if !(g > 1.0 && g.is_finite()) {
             return Err(fault(
                 "ArgumentError",
-                format!("key `gap_factor` in options of read_log() must be above 1, found {g}"),
+                format!("key `gap_factor` in options of {name} must be above 1, found {g}"),
             ));
         }
         opts.gap_factor = g;
+    }
+    if let Some(b) = o.opt_f64("block_bytes")? {
+        if b.fract() != 0.0 || !(4096.0..=(1u64 << 32) as f64).contains(&b) {
+            return Err(fault(
+                "ArgumentError",
+                format!(
+                    "key `block_bytes` in options of {name} must be a whole number from 4096 to 2^32, found {b}"
+                ),
+            ));
+        }
+        opts.block_bytes = b as usize;
     }
     Ok(opts)
 }
@@ -877,7 +888,7 @@ pub(crate) fn register(engine: &mut Engine) {
     .register_into_engine(
         engine,
         |ctx: NativeCallContext, path: &str, options: Map| -> ScriptResult<Frame> {
-            let opts = log_options(&options)?;
+            let opts = log_options(&options, "read_log()")?;
             Ok(Frame::from_log(read_log(resolve(&ctx, path), &opts)?))
         },
     );

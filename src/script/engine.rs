@@ -24,10 +24,13 @@ const DOMAINS: &[fn(&mut Engine)] = &[
     super::error::register,
     super::circuits::register,
     super::signal::register,
+    super::running::register,
     super::spring::register,
     super::calib::register,
     #[cfg(feature = "data")]
     super::data::register,
+    #[cfg(feature = "data")]
+    super::blocks::register,
     // bridge::register, gauge::register, rosette::register, chain::register,
     // spring::register, layout::register, signal::register, calib::register,
     // uncertainty::register, data::register (feature "data"), plot::register (feature "plot"),

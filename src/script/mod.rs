@@ -65,6 +65,8 @@
 // Helpers for the domain binding files; some are used only once those land.
 #[allow(dead_code)]
 mod bind;
+#[cfg(feature = "data")]
+mod blocks;
 mod calib;
 mod circuits;
 mod column;
@@ -79,6 +81,7 @@ mod lex;
 mod output;
 mod quantity;
 mod resolver;
+mod running;
 mod session;
 mod signal;
 mod spring;

@@ -20,7 +20,7 @@ use crate::{
 use uom::si::frequency::hertz;
 
 /// A column with the same dimension, kind and display unit as `like`, from SI values.
-fn same_unit(like: &Column, data: Vec<f64>) -> Column {
+pub(super) fn same_unit(like: &Column, data: Vec<f64>) -> Column {
     Column::from_si(
         Arc::new(data),
         like.dimension(),
@@ -30,7 +30,7 @@ fn same_unit(like: &Column, data: Vec<f64>) -> Column {
 }
 
 /// A quantity in `like`'s unit, from an SI value, as a script value.
-fn quantity_like(like: &Column, si: f64) -> Dynamic {
+pub(super) fn quantity_like(like: &Column, si: f64) -> Dynamic {
     Dynamic::from(match like.unit() {
         Some(u) => Quantity::in_unit(u.from_si(si), Arc::new(u.clone())),
         None => Quantity::from_si(si, like.dimension(), like.kind()),
@@ -117,7 +117,7 @@ fn frequency(x: &Dynamic, what: &str) -> ScriptResult<Frequency> {
 }
 
 /// The filter an options map describes (`cutoff`, `rate`, `order`, `design`).
-fn design(band: FilterBand, opts: &Map, name: &str) -> ScriptResult<(SosFilter, bool)> {
+pub(super) fn design(band: FilterBand, opts: &Map, name: &str) -> ScriptResult<(SosFilter, bool)> {
     let o = Options::new(
         opts,
         name,
@@ -177,7 +177,7 @@ fn run_filter(x: &Column, f: &SosFilter, zero_phase: bool) -> ScriptResult<Colum
     Ok(same_unit(x, y))
 }
 
-fn summary_record(x: &Column, s: &Summary, title: &str) -> Record {
+pub(super) fn summary_record(x: &Column, s: &Summary, title: &str) -> Record {
     Record::new(title)
         .field("count", s.count as INT)
         .field("min", quantity_like(x, s.min))

@@ -1,6 +1,7 @@
 //! Signal processing and fatigue counting for recorded channels: Butterworth and Bessel filters
 //! as second-order sections (causal, streaming or zero-phase), moving average, decimation,
-//! linear resampling, statistics, hold and ramp detection, rainflow counting and Miner damage.
+//! linear resampling, statistics (whole or gathered block by block), hold and ramp detection,
+//! rainflow counting and Miner damage.
 //!
 //! Everything works on plain `&[f64]` samples (in place where the result has the input's
 //! length) so a caller holding a column from a log reader passes its buffer straight in; the
@@ -19,6 +20,7 @@ mod moving_average;
 mod rainflow;
 mod resample;
 mod response;
+mod running;
 mod stats;
 mod stream;
 mod zero_phase;
@@ -32,5 +34,6 @@ pub use moving_average::moving_average;
 pub use rainflow::{Cycle, RangeBin, counts_by_range, rainflow_cycles, range_histogram, reversals};
 pub use resample::{resample_linear, uniform_times};
 pub use response::FrequencyResponse;
+pub use running::{LineFit, RunningLine, RunningSummary};
 pub use stats::{Summary, rising_crossings, summarize, summarize_windows};
 pub use stream::{StreamingBank, StreamingFilter};
