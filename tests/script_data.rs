@@ -235,3 +235,150 @@ fn zero_and_drift_against_hand_means() {
     assert_eq!(e.kind, "DataError");
     assert!(e.message.contains("zero window"), "{}", e.message);
 }
+
+// ---------------------------------------------------------------------------------------------
+// Block by block: blocks(), the running filter, statistics and fit, open_writer()
+
+/// A log of `n` rows at 1 kHz: a strain-like channel (a slow sine and a faster one, plus an
+/// offset) and a force proportional to it plus a small wobble, so the fit is not exact.
+fn long_log(dir: &Path, n: usize) -> std::path::PathBuf {
+    let mut text = String::from("time_s,sg_mVV,force [N]\n");
+    for i in 0..n {
+        let t = i as f64 * 1e-3;
+        let mvv = 0.5 + 0.4 * (t * 0.7).sin() + 0.05 * (t * 31.0).sin();
+        let f = 12.5 + 2000.0 * mvv + 0.3 * (t * 7.0).cos();
+        text.push_str(&format!("{t:.3},{mvv:.6},{f:.3}\n"));
+    }
+    let p = dir.join("long.csv");
+    std::fs::write(&p, text).unwrap();
+    p
+}
+
+#[test]
+fn a_log_reduced_block_by_block_matches_the_whole_log_reduced_at_once() {
+    // The reference is the whole-record path (lowpass, stats and a least-squares line over
+    // whole columns; lowpass itself is checked against scipy.signal in tests/signal.rs).
+    let dir = tempfile::tempdir().unwrap();
+    long_log(dir.path(), 30_000);
+    let mut s = session_in(Some(dir.path()));
+    run(
+        &mut s,
+        r#"
+        let design = #{ cutoff: 20.0 * Hz, rate: 1000.0 * Hz, order: 4 };
+        // Whole record.
+        let f = read_log("long.csv");
+        let e = to_strain(f["sg"], "quarter", 2.0);
+        let y = lowpass(e, design);
+        let whole = stats(y);
+        let load = lowpass(f["force"], design);
+        let dx = y - y.mean();
+        let b_whole = (dx * (load - load.mean())).sum() / (dx * dx).sum();
+        // Block by block, 4 KiB of file at a time (about 150 blocks).
+        let lp = running_lowpass(design);
+        let lpf = running_lowpass(design);
+        let st = running_stats();
+        let fit = running_fit();
+        let kept = [];
+        let blocks_seen = 0;
+        for b in blocks("long.csv", #{ block_bytes: 4096 }) {
+            let yb = lp.apply(to_strain(b["sg"], "quarter", 2.0));
+            st.add(yb);
+            fit.add(yb, lpf.apply(b["force"]));
+            kept.push(yb);
+            blocks_seen += 1;
+        }
+        assert(blocks_seen > 100);
+        let run = st.summary();
+        assert_eq(run.count, whole.count);
+        assert_close(run.mean, whole.mean, 1e-12);
+        assert_close(run.std, whole.std, 1e-11);
+        assert_close(run.max, whole.max, 1e-15);
+        assert_close(run.min, whole.min, 1e-15);
+        assert_close(fit.line().b, b_whole, 1e-11);
+        let joined = concat(kept);
+        assert_eq(joined.len(), y.len());
+        assert_close(joined[29999], y[29999], 1e-13);
+        assert_eq(rising_crossings(joined, whole.mean), rising_crossings(y, whole.mean));
+        "#,
+    );
+}
+
+#[test]
+fn a_bad_number_deep_in_a_log_read_in_blocks_names_row_column_and_script_line() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut text = String::from("t,a\n");
+    for i in 0..5000 {
+        if i == 4321 {
+            text.push_str("4.321,oops\n");
+        } else {
+            text.push_str(&format!("{},{}\n", i as f64 * 1e-3, i));
+        }
+    }
+    std::fs::write(dir.path().join("bad.csv"), text).unwrap();
+    let mut s = session_in(Some(dir.path()));
+    let e = err(
+        &mut s,
+        "let n = 0;\nfor b in blocks(\"bad.csv\", #{ block_bytes: 4096 }) {\n  n += b.rows;\n}",
+    );
+    assert_eq!(e.kind, "DataError");
+    // Data row i sits on file row i + 2.
+    assert!(
+        e.message.contains("bad.csv") && e.message.contains("row 4323") && e.message.contains("column 2"),
+        "{}",
+        e.message
+    );
+    assert_eq!(e.line, 2, "{}", e.render());
+    // The blocks before the bad one were delivered: the loop ran.
+    run(&mut s, "assert(n > 3000);");
+}
+
+#[test]
+fn a_writer_fed_block_by_block_writes_what_a_whole_column_writer_writes() {
+    let dir = tempfile::tempdir().unwrap();
+    long_log(dir.path(), 5_000);
+    let mut s = session_in(Some(dir.path()));
+    run(
+        &mut s,
+        r#"
+        for fmt in ["csv", "parquet"] {
+            let w = open_writer("blocks." + fmt);
+            for b in blocks("long.csv", #{ block_bytes: 4096 }) {
+                w.append(#{ t: b.time, e: to_strain(b["sg"], "quarter", 2.0).to("ue") });
+            }
+            assert(w.finish() > 0);
+            let f = read_log("long.csv");
+            let cols = #{ t: f.time, e: to_strain(f["sg"], "quarter", 2.0).to("ue") };
+            if fmt == "csv" { write_csv("whole.csv", cols); } else { write_parquet("whole.parquet", cols); }
+            let a = read_log("blocks." + fmt);
+            let c = read_log("whole." + fmt);
+            assert_eq(a.names, c.names);
+            assert_eq(a["e"].values("ue"), c["e"].values("ue"));
+        }
+        "#,
+    );
+}
+
+#[test]
+fn a_writer_never_finished_leaves_no_file_and_bad_blocks_are_refused() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut s = session_in(Some(dir.path()));
+    let e = err(
+        &mut s,
+        r#"let w = open_writer("half.parquet");
+w.append(#{ a: column([1.0, 2.0], "N") });
+w.append(#{ a: column([1.0], "m") });"#,
+    );
+    assert_eq!((e.kind.as_str(), e.line), ("UnitError", 3), "{}", e.render());
+    assert!(e.message.contains("column `a`"), "{}", e.message);
+    let e = err(
+        &mut s,
+        r#"let w = open_writer("half2.csv");
+w.append(#{ a: column([1.0, 2.0], "N"), b: column([1.0], "N") });"#,
+    );
+    assert!(e.message.contains("one length"), "{}", e.message);
+    // Both writers are gone with their cells' scopes: nothing in the folder, not even a
+    // temporary file.
+    drop(s);
+    let left: Vec<_> = std::fs::read_dir(dir.path()).unwrap().collect();
+    assert!(left.is_empty(), "{left:?}");
+}

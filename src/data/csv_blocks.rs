@@ -250,7 +250,7 @@ fn read_block(
     let mut columns: Vec<Vec<f64>> = (0..format.outputs())
         .map(|_| Vec::with_capacity(guess))
         .collect();
-    let rows = format.read(block, first_row, &mut columns)?;
+    let read = format.read(block, first_row, &mut columns)?;
     let mut time = None;
     let mut channels = columns;
     if plan.time.is_some() {
@@ -258,13 +258,15 @@ fn read_block(
     }
     let mut chunk = LogChunk {
         first_row,
-        rows,
+        rows: read.rows,
         time: None,
         channels: Vec::new(),
         skipped: Vec::new(),
         done: 0,
     };
-    drop_non_finite(plan, &mut chunk, &mut time, &mut channels)?;
+    if read.non_finite {
+        drop_non_finite(plan, &mut chunk, &mut time, &mut channels)?;
+    }
     chunk.time = time;
     chunk.channels = channels;
     Ok(chunk)

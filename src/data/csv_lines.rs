@@ -14,6 +14,17 @@ use super::plan::Plan;
 use super::time::parse_timestamp_parts;
 use super::DataError;
 
+/// What [`LineFormat::read`] found besides the values.
+pub(crate) struct ReadLines {
+    /// The file row of every sample, when blank lines made them not consecutive.
+    pub rows: Option<Vec<usize>>,
+    /// Whether a value read is NaN or infinite.
+    pub non_finite: bool,
+}
+
+/// Lines read side by side (see [`LineFormat::read`]).
+const LANES: usize = 4;
+
 /// What becomes of one field of a line.
 #[derive(Clone, Copy, Debug)]
 enum Role {
@@ -61,84 +72,181 @@ impl LineFormat {
 
     /// Reads every line of `block` (whole lines; the last may lack its line end) into `out`,
     /// one vector per kept column, appending. `first_row` is the file row of the first line.
-    /// Returns the file row of every sample when blank lines made them not consecutive.
+    /// Returns the file row of every sample when blank lines made them not consecutive, and
+    /// whether any value read is NaN or infinite (only the slow path can read one, so the
+    /// caller's scan for them is skipped otherwise).
+    ///
+    /// Lines go in groups of [`LANES`]: their starts are found first (a vectorised search for
+    /// line ends), then field by field the group's lines are read side by side. Reading one
+    /// number needs the end of the one before it, so one line is a chain of dependent steps;
+    /// four lines are four chains the processor overlaps (about 1.5 times faster here). A group
+    /// with anything but plain numbers in the expected places (a blank line, a number the fast
+    /// path leaves alone, a wrong field count) is read again line by line, which also finds
+    /// and names any error.
     pub(crate) fn read(
         &self,
         block: &[u8],
         first_row: usize,
         out: &mut [Vec<f64>],
-    ) -> Result<Option<Vec<usize>>, DataError> {
+    ) -> Result<ReadLines, DataError> {
         let n = block.len();
-        let sep = self.sep;
-        let fields = self.roles.len();
+        let mut non_finite = false;
+        let grouped = self
+            .roles
+            .iter()
+            .all(|r| !matches!(r, Role::Timestamp(_)));
+        let mut lanes = vec![[0.0f64; LANES]; out.len()];
         let mut rows: Option<Vec<usize>> = None;
         let mut samples = 0usize;
         let mut line = 0usize;
         let mut p = 0usize;
         while p < n {
-            let row = first_row + line;
-            line += 1;
-            if block[p].is_ascii_whitespace() {
-                let end = memchr::memchr(b'\n', &block[p..]).map_or(n, |k| p + k);
-                if block[p..end].iter().all(u8::is_ascii_whitespace) {
+            let mut starts = [0usize; LANES];
+            let mut ends = [0usize; LANES];
+            let mut count = 0;
+            let mut q = p;
+            while count < LANES && q < n {
+                starts[count] = q;
+                ends[count] = memchr::memchr(b'\n', &block[q..]).map_or(n, |k| q + k);
+                q = ends[count] + 1;
+                count += 1;
+            }
+            if grouped && count == LANES && self.group(block, &starts, &ends, &mut lanes) {
+                for (o, v) in out.iter_mut().zip(&lanes) {
+                    o.extend_from_slice(v);
+                }
+                if let Some(r) = rows.as_mut() {
+                    r.extend((0..LANES).map(|j| first_row + line + j));
+                }
+                samples += LANES;
+                line += LANES;
+                p = q;
+                continue;
+            }
+            for j in 0..count {
+                let row = first_row + line;
+                line += 1;
+                if self.line(block, starts[j], row, out, &mut non_finite)? {
+                    samples += 1;
+                    if let Some(r) = rows.as_mut() {
+                        r.push(row);
+                    }
+                } else {
                     // Policy: a blank line is not a sample; from here on, rows are listed.
                     rows.get_or_insert_with(|| (0..samples).map(|i| first_row + i).collect());
-                    p = end + 1;
-                    continue;
                 }
             }
-            for (f, role) in self.roles.iter().enumerate() {
+            p = q;
+        }
+        Ok(ReadLines { rows, non_finite })
+    }
+
+    /// Reads the [`LANES`] lines starting at `starts` (ending at `ends`) side by side into
+    /// `lanes`, when every kept field is a plain number and every line has the header's fields;
+    /// false (with `lanes` partly written) when one is not.
+    #[inline]
+    fn group(
+        &self,
+        block: &[u8],
+        starts: &[usize; LANES],
+        ends: &[usize; LANES],
+        lanes: &mut [[f64; LANES]],
+    ) -> bool {
+        let sep = self.sep;
+        let last = self.roles.len() - 1;
+        let mut ps = *starts;
+        for (f, role) in self.roles.iter().enumerate() {
+            for j in 0..LANES {
                 let q = match *role {
-                    Role::Number(k) => match plain_decimal(block, p) {
-                        Some((v, q)) if field_ends(block, q, sep) => {
-                            out[k].push(v);
+                    Role::Number(k) => match plain_decimal(block, ps[j]) {
+                        Some((v, q)) => {
+                            lanes[k][j] = v;
                             q
                         }
-                        _ => {
-                            let e = field_end(block, p, sep);
-                            out[k].push(self.slow_number(&block[p..e], row, k)?);
-                            e
-                        }
+                        None => return false,
                     },
-                    Role::Skip => field_end(block, p, sep),
-                    Role::Timestamp(k) => {
-                        let e = field_end(block, p, sep);
-                        out[k].push(self.timestamp(&block[p..e], row, k)?);
-                        e
-                    }
+                    Role::Skip => field_end(block, ps[j], sep),
+                    Role::Timestamp(_) => return false,
                 };
-                let last = f + 1 == fields;
-                match block.get(q) {
-                    Some(&c) if c == sep && !last => p = q + 1,
-                    Some(&c) if c == sep => {
-                        let end = memchr::memchr(b'\n', &block[q..]).map_or(n, |k| q + k);
-                        let extra = memchr::memchr_iter(sep, &block[q..end]).count();
-                        return Err(DataError::Ragged {
-                            path: self.plan.path.clone(),
-                            row,
-                            expected: fields,
-                            found: fields + extra,
-                        });
+                if f < last {
+                    if q >= ends[j] || block[q] != sep {
+                        return false;
                     }
-                    _ if !last => {
-                        return Err(DataError::Ragged {
-                            path: self.plan.path.clone(),
-                            row,
-                            expected: fields,
-                            found: f + 1,
-                        });
-                    }
-                    // The line end: `\n`, `\r\n`, or the end of the block.
-                    Some(b'\r') => p = q + 2,
-                    _ => p = q + 1,
+                    ps[j] = q + 1;
+                } else if !(q == ends[j] || (q + 1 == ends[j] && block[q] == b'\r')) {
+                    return false;
                 }
             }
-            samples += 1;
-            if let Some(r) = rows.as_mut() {
-                r.push(row);
+        }
+        true
+    }
+
+    /// Reads the line starting at `p` into `out`: true for a sample, false for a blank line.
+    fn line(
+        &self,
+        block: &[u8],
+        mut p: usize,
+        row: usize,
+        out: &mut [Vec<f64>],
+        non_finite: &mut bool,
+    ) -> Result<bool, DataError> {
+        let n = block.len();
+        let sep = self.sep;
+        let fields = self.roles.len();
+        if block[p].is_ascii_whitespace() {
+            let end = memchr::memchr(b'\n', &block[p..]).map_or(n, |k| p + k);
+            if block[p..end].iter().all(u8::is_ascii_whitespace) {
+                return Ok(false);
             }
         }
-        Ok(rows)
+        for (f, role) in self.roles.iter().enumerate() {
+            let q = match *role {
+                Role::Number(k) => match plain_decimal(block, p) {
+                    Some((v, q)) if field_ends(block, q, sep) => {
+                        out[k].push(v);
+                        q
+                    }
+                    _ => {
+                        let e = field_end(block, p, sep);
+                        let v = self.slow_number(&block[p..e], row, k)?;
+                        *non_finite |= !v.is_finite();
+                        out[k].push(v);
+                        e
+                    }
+                },
+                Role::Skip => field_end(block, p, sep),
+                Role::Timestamp(k) => {
+                    let e = field_end(block, p, sep);
+                    out[k].push(self.timestamp(&block[p..e], row, k)?);
+                    e
+                }
+            };
+            let last = f + 1 == fields;
+            match block.get(q) {
+                Some(&c) if c == sep && !last => p = q + 1,
+                Some(&c) if c == sep => {
+                    let end = memchr::memchr(b'\n', &block[q..]).map_or(n, |k| q + k);
+                    let extra = memchr::memchr_iter(sep, &block[q..end]).count();
+                    return Err(DataError::Ragged {
+                        path: self.plan.path.clone(),
+                        row,
+                        expected: fields,
+                        found: fields + extra,
+                    });
+                }
+                _ if !last => {
+                    return Err(DataError::Ragged {
+                        path: self.plan.path.clone(),
+                        row,
+                        expected: fields,
+                        found: f + 1,
+                    });
+                }
+                // The line end: `\n`, `\r\n`, or the end of the block.
+                _ => {}
+            }
+        }
+        Ok(true)
     }
 
     /// A field the fast path did not take: trimmed of white space and surrounding quotes, then

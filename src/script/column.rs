@@ -103,6 +103,19 @@ impl Column {
         &self.data
     }
 
+    /// The SI values as an owned vector: the column's own buffer when nothing else holds it
+    /// (a temporary in a script expression), else a copy.
+    ///
+    /// ```
+    /// use gaugebook::script::Column;
+    /// let c = Column::new(vec![1.5, 2.0], "kN")?;
+    /// assert_eq!(c.into_data(), vec![1500.0, 2000.0]);
+    /// # Ok::<(), gaugebook::UnitError>(())
+    /// ```
+    pub fn into_data(self) -> Vec<f64> {
+        Arc::try_unwrap(self.data).unwrap_or_else(|shared| shared.as_ref().clone())
+    }
+
     /// The dimension.
     ///
     /// ```

@@ -199,9 +199,11 @@ pub(crate) fn register(engine: &mut Engine) {
         engine,
         |f: &mut RunningFilter, x: Column| -> ScriptResult<Column> {
             check_like(&mut f.like, &x, "this running filter")?;
-            let mut y = x.data().as_ref().clone();
+            let like = template(&x);
+            // In place when the block is a temporary (`f.apply(e - z)`), else on a copy.
+            let mut y = x.into_data();
             f.filter.process(&mut y)?;
-            Ok(same_unit(&x, y))
+            Ok(same_unit(&like, y))
         },
     );
 

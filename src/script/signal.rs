@@ -457,6 +457,66 @@ pub(crate) fn register(engine: &mut Engine) {
     );
 
     func(
+        "rising_crossings",
+        &["blocks: Array", "level: Quantity"],
+        "i64",
+        r#"
+        Rising crossings of a record held as consecutive blocks (an array of columns of one
+        dimension), counted across the joins too, without joining them.
+        ```rhai
+        let blocks = [column([0.0, 1.0, 0.0], "V"), column([0.5, 2.0], "V")];
+        assert_eq(rising_crossings(blocks, 0.5 * V), 2);
+        ```
+    "#,
+    )
+    .register_into_engine(engine, |blocks: Array, level: Quantity| -> ScriptResult<INT> {
+        let mut count = 0usize;
+        let mut prev: Option<f64> = None;
+        let mut l: Option<f64> = None;
+        for (i, v) in blocks.iter().enumerate() {
+            let c = v.read_lock::<Column>().ok_or_else(|| {
+                fault(
+                    "ArgumentError",
+                    format!(
+                        "item {i} of the blocks of rising_crossings() must be a Column, found {}",
+                        super::bind::type_of(v)
+                    ),
+                )
+            })?;
+            let l = match l {
+                Some(l) => l,
+                None => {
+                    let unit = c.unit().map(|u| u.symbol().to_string()).unwrap_or_default();
+                    let si = match values(&Dynamic::from(level.clone()), "level", &unit)? {
+                        Values::One(si) => si,
+                        Values::Many(_) => {
+                            return Err(fault("ArgumentError", "level must be a single quantity"));
+                        }
+                    };
+                    *l.insert(si)
+                }
+            };
+            if c.dimension() != level.dimension() {
+                return Err(fault(
+                    "UnitError",
+                    format!(
+                        "item {i} of the blocks of rising_crossings() is a column of {}, the level {}",
+                        c.dimension(),
+                        level.dimension()
+                    ),
+                ));
+            }
+            let x = c.data();
+            if let (Some(p), Some(&first)) = (prev, x.first()) {
+                count += usize::from(p < l && l <= first);
+            }
+            count += crate::rising_crossings(x, l);
+            prev = x.last().copied().or(prev);
+        }
+        Ok(count as INT)
+    });
+
+    func(
         "holds",
         &["x: Column", "criteria: Map"],
         "Array",
