@@ -3,7 +3,7 @@
 //!
 //! ```text
 //! cargo run --release --no-default-features --features data --example reanalysis -- pipeline LOG --out-dir DIR [--format csv|parquet] [--block-mib N]
-//! cargo run --release --no-default-features --features data,script --example reanalysis -- script LOG --out-dir DIR [--format csv|parquet]
+//! cargo run --release --no-default-features --features data,script,plot --example reanalysis -- script LOG --out-dir DIR [--format csv|parquet]
 //! cargo run --release --no-default-features --features data --example reanalysis -- bare-read LOG
 //! cargo run --release --no-default-features --features data --example reanalysis -- read-only LOG
 //! cargo run --release --no-default-features --features data --example reanalysis -- compare [--rows 1000000,10000000] [--repeat 3] [--only csv-csv,csv-parquet,parquet-parquet]
@@ -15,20 +15,22 @@
 //! filtered reference load against filtered sg1 strain, then `<stem>_strain.{csv,parquet}` and
 //! `<stem>_summary.json` (schema `bench.reanalysis.summary/1`). The log streams in blocks: the
 //! next block is parsed on a reading thread while this one is converted, filtered (four channels
-//! through the cascade together) and folded into running statistics (per-block pairwise sums
-//! merged by Chan et al.'s update), and the strain file is written by a third thread as the
-//! blocks come, so reading, computing and writing overlap. Only the mean crossings and the fit
-//! residuals need the final mean and line: one pass over the kept blocks at the end, on two
-//! threads. `timings_s` gives the time the main thread spent in each stage (`read` is the time it
+//! through the cascade together) and folded into running statistics and a running line fit
+//! (`RunningSummary`, `RunningLine`: per-block sums merged by Chan et al.'s update), and the
+//! strain file is written by a third thread as the blocks come, so reading, computing and
+//! writing overlap. Only the mean crossings need the final mean: one pass over the kept blocks
+//! at the end, on two threads. `timings_s` gives the time the main thread spent in each stage (`read` is the time it
 //! waited for blocks; `write` the wait for the writer).
 //!
 //! `script` runs `examples/reanalysis.rhai`, the same steps written as a Gaugebook script (the
-//! log read whole, each step over whole columns in Rust); its strain file follows the script
+//! log read block by block with `blocks`, running filters, statistics and fit, the strain file
+//! on the writer's thread), plus three steps the peer does not take: sg1 strain to load through
+//! the fit, rainflow cycles of the load and a figure of it. Its strain file follows the script
 //! writers' convention (headers `name [unit]`, columns in name order).
 //!
 //! `compare` generates the logs into `target/benchdata` with `gen_testlog.py` when missing (with
 //! the Parquet copy when a pyarrow Python is found), then runs the peer, this pipeline (and the
-//! script, when built with `script`) and bare polars reads, each `--repeat` times under
+//! script, when built with `script` and `plot`) and bare polars reads, each `--repeat` times under
 //! `/usr/bin/time -v`, checks that every summary agrees with the peer's, and prints medians of
 //! wall time, CPU time and peak memory, their ratios, and the load average at the runs' starts.
 
@@ -42,8 +44,8 @@ use std::time::Instant;
 
 use gaugebook::units::Frequency;
 use gaugebook::{
-    Arrangement, ColumnWriter, ExportOptions, FilterBand, LogFormat, LogOptions, SosFilter,
-    StreamingBank, open_log,
+    Arrangement, ColumnWriter, ExportOptions, FilterBand, LogFormat, LogOptions, RunningLine,
+    RunningSummary, SosFilter, StreamingBank, open_log,
 };
 use uom::si::frequency::hertz;
 
@@ -58,7 +60,7 @@ pub fn main() {
         Some("bare-read") => bare_read(&args[1..]),
         Some("read-only") => read_only(&args[1..]),
         Some("compare") => compare(&args[1..]),
-        #[cfg(feature = "script")]
+        #[cfg(all(feature = "script", feature = "plot"))]
         Some("script") => script(&args[1..]),
         _ => Err("usage: reanalysis pipeline LOG --out-dir DIR [--format csv|parquet] | bare-read LOG | compare [--rows N,M]".into()),
     };
@@ -104,130 +106,6 @@ struct Timings {
     stats: f64,
     fit: f64,
     write: f64,
-}
-
-/// Running statistics of one channel, merged block by block (Chan, Golub and LeVeque's pairwise
-/// update of the mean and the sum of squared deviations, 1979 (from memory)), so the statistics
-/// need no pass over the whole record after reading. Within a block one pass gathers the sums of
-/// `x − k` and `(x − k)²` about the block's first sample `k` in four lanes; the shift keeps the
-/// cancellation in `Σ(x−k)² − (Σ(x−k))²/n` to a few units of round-off, since a block's samples
-/// lie within a few standard deviations of `k`.
-#[derive(Clone, Copy)]
-struct Moments {
-    n: f64,
-    mean: f64,
-    m2: f64,
-    min: f64,
-    max: f64,
-}
-
-impl Moments {
-    fn new() -> Moments {
-        Moments {
-            n: 0.0,
-            mean: 0.0,
-            m2: 0.0,
-            min: f64::INFINITY,
-            max: f64::NEG_INFINITY,
-        }
-    }
-
-    fn add_block(&mut self, x: &[f64]) {
-        let Some(&k) = x.first() else {
-            return;
-        };
-        let (mut s1, mut s2) = ([0.0f64; 4], [0.0f64; 4]);
-        let (mut lo, mut hi) = ([f64::INFINITY; 4], [f64::NEG_INFINITY; 4]);
-        let chunks = x.chunks_exact(4);
-        let tail = chunks.remainder();
-        for c in chunks {
-            for j in 0..4 {
-                let d = c[j] - k;
-                s1[j] += d;
-                s2[j] += d * d;
-                lo[j] = lo[j].min(c[j]);
-                hi[j] = hi[j].max(c[j]);
-            }
-        }
-        for (j, &v) in tail.iter().enumerate() {
-            let d = v - k;
-            s1[j] += d;
-            s2[j] += d * d;
-            lo[j] = lo[j].min(v);
-            hi[j] = hi[j].max(v);
-        }
-        let nb = x.len() as f64;
-        let t1 = (s1[0] + s1[1]) + (s1[2] + s1[3]);
-        let t2 = (s2[0] + s2[1]) + (s2[2] + s2[3]);
-        let mb = k + t1 / nb;
-        let m2b = (t2 - t1 * t1 / nb).max(0.0);
-        self.min = lo.iter().copied().fold(self.min, f64::min);
-        self.max = hi.iter().copied().fold(self.max, f64::max);
-        let n = self.n + nb;
-        let d = mb - self.mean;
-        self.mean += d * nb / n;
-        self.m2 += m2b + d * d * self.n * nb / n;
-        self.n = n;
-    }
-}
-
-/// Running co-moment of two channels (the same shifted one-pass sums and pairwise update), for
-/// the least-squares line.
-#[derive(Clone, Copy)]
-struct CoMoments {
-    n: f64,
-    mx: f64,
-    my: f64,
-    sxx: f64,
-    syy: f64,
-    sxy: f64,
-}
-
-impl CoMoments {
-    fn add_block(&mut self, x: &[f64], y: &[f64]) {
-        let (Some(&kx), Some(&ky)) = (x.first(), y.first()) else {
-            return;
-        };
-        let mut acc = [[0.0f64; 4]; 5]; // Σdx, Σdy, Σdx², Σdy², Σdx·dy
-        let mut i = 0;
-        let n4 = x.len().min(y.len()) / 4 * 4;
-        while i < n4 {
-            for j in 0..4 {
-                let dx = x[i + j] - kx;
-                let dy = y[i + j] - ky;
-                acc[0][j] += dx;
-                acc[1][j] += dy;
-                acc[2][j] += dx * dx;
-                acc[3][j] += dy * dy;
-                acc[4][j] += dx * dy;
-            }
-            i += 4;
-        }
-        for (j, (xv, yv)) in x[n4..].iter().zip(&y[n4..]).enumerate() {
-            let dx = xv - kx;
-            let dy = yv - ky;
-            acc[0][j] += dx;
-            acc[1][j] += dy;
-            acc[2][j] += dx * dx;
-            acc[3][j] += dy * dy;
-            acc[4][j] += dx * dy;
-        }
-        let t: Vec<f64> = acc.iter().map(|a| (a[0] + a[1]) + (a[2] + a[3])).collect();
-        let nb = x.len().min(y.len()) as f64;
-        let (bx, by) = (kx + t[0] / nb, ky + t[1] / nb);
-        let sxx = t[2] - t[0] * t[0] / nb;
-        let syy = t[3] - t[1] * t[1] / nb;
-        let sxy = t[4] - t[0] * t[1] / nb;
-        let n = self.n + nb;
-        let (dx, dy) = (bx - self.mx, by - self.my);
-        let w = self.n * nb / n;
-        self.sxx += sxx + dx * dx * w;
-        self.syy += syy + dy * dy * w;
-        self.sxy += sxy + dx * dy * w;
-        self.mx += dx * nb / n;
-        self.my += dy * nb / n;
-        self.n = n;
-    }
 }
 
 /// Rising crossings of `level` over a record held as consecutive blocks:
@@ -311,15 +189,10 @@ fn pipeline(args: &[String]) -> Res<()> {
     });
 
     let mut kept: Vec<Vec<Arc<Vec<f64>>>> = vec![Vec::new(); 5];
-    let mut moments = [Moments::new(); 4];
-    let mut fit = CoMoments {
-        n: 0.0,
-        mx: 0.0,
-        my: 0.0,
-        sxx: 0.0,
-        syy: 0.0,
-        sxy: 0.0,
-    };
+    // Statistics and the fit gathered block by block (the library's running sums, merged by
+    // Chan et al.'s update), so they need no pass over the whole record.
+    let mut moments = [RunningSummary::new(); 4];
+    let mut fit = RunningLine::new();
     let mut zero: Option<[f64; 4]> = None;
     let mut fs = f64::NAN;
     let mut filters: Option<StreamingBank> = None;
@@ -386,11 +259,11 @@ fn pipeline(args: &[String]) -> Res<()> {
             // d) and e): this block's share of the statistics and of the fit.
             let t2 = Instant::now();
             for k in 0..4 {
-                moments[k].add_block(&ch[k]);
+                moments[k].add(&ch[k]);
             }
             tm.stats += t2.elapsed().as_secs_f64();
             let t3 = Instant::now();
-            fit.add_block(&ch[0], &ch[4]);
+            fit.add(&ch[0], &ch[4])?;
             tm.fit += t3.elapsed().as_secs_f64();
             let t4 = Instant::now();
             rows += n;
@@ -414,44 +287,35 @@ fn pipeline(args: &[String]) -> Res<()> {
     drop(wtx);
     drop(stream);
 
-    // e) force = a + b·strain, least squares (numpy.polyfit deg 1), from the merged moments.
+    // e) force = a + b·strain, least squares (numpy.polyfit deg 1), with r² and the rmse of
+    //    the residuals, from the merged co-moments.
     let t5 = Instant::now();
-    let b = fit.sxy / fit.sxx;
-    let a = fit.my - b * fit.mx;
+    let line = fit.fit()?;
+    let (a, b, r2, rmse) = (line.intercept, line.slope, line.r2, line.rmse);
     tm.fit += t5.elapsed().as_secs_f64();
 
-    // d) and e): the crossings need the final mean and r², rmse the fitted line: one pass over
-    //    the kept blocks, on two threads while the writer finishes.
+    // d) the crossings need the final mean: one pass over the kept blocks, on two threads
+    //    while the writer finishes.
     let t6 = Instant::now();
-    let means: Vec<f64> = moments.iter().map(|m| m.mean).collect();
-    let (crossings, ss_res) = std::thread::scope(|s| {
+    let means: Vec<f64> = moments.iter().map(RunningSummary::mean).collect();
+    let crossings = std::thread::scope(|s| {
         let h = s.spawn(|| {
-            let c: Vec<usize> = (2..4)
+            (2..4)
                 .map(|k| rising_crossings(&kept[k], means[k]))
-                .collect();
-            let res: f64 = kept[0]
-                .iter()
-                .zip(&kept[4])
-                .map(|(x, y)| pairwise_by(x.len(), &|i| (y[i] - (a + b * x[i])).powi(2)))
-                .sum();
-            (c, res)
+                .collect::<Vec<usize>>()
         });
         let mut c: Vec<usize> = (0..2)
             .map(|k| rising_crossings(&kept[k], means[k]))
             .collect();
         // A counting thread only panics on a bug; pass that panic on.
-        let (c2, res) = h.join().unwrap_or_else(|p| std::panic::resume_unwind(p));
-        c.extend(c2);
-        (c, res)
+        c.extend(h.join().unwrap_or_else(|p| std::panic::resume_unwind(p)));
+        c
     });
     drop(kept);
-    let r2 = 1.0 - ss_res / fit.syy;
-    let rmse = (ss_res / fit.n).sqrt();
     let mut stats = String::new();
     let z = zero.ok_or("zero")?;
     for (k, name) in CHANNELS.iter().enumerate() {
-        let m = &moments[k];
-        let std = (m.m2 / (m.n - 1.0)).sqrt();
+        let m = moments[k].summary()?;
         let _ = write!(
             stats,
             "{}    \"{name}\": {{\n      \"zero_offset_ue\": {},\n      \"min_ue\": {},\n      \"max_ue\": {},\n      \"mean_ue\": {},\n      \"std_ue\": {},\n      \"rising_mean_crossings\": {}\n    }}",
@@ -460,7 +324,7 @@ fn pipeline(args: &[String]) -> Res<()> {
             num(m.min),
             num(m.max),
             num(m.mean),
-            num(std),
+            num(m.std_dev),
             crossings[k]
         );
     }
@@ -553,7 +417,7 @@ fn pipeline(args: &[String]) -> Res<()> {
 
 /// The same pipeline as `examples/reanalysis.rhai`, run in a scripting session: the script reads
 /// the whole log and runs each step over whole columns.
-#[cfg(feature = "script")]
+#[cfg(all(feature = "script", feature = "plot"))]
 fn script(args: &[String]) -> Res<()> {
     use gaugebook::script::rhai::Dynamic;
     use gaugebook::script::{Session, SessionOptions};
@@ -906,9 +770,9 @@ fn compare(args: &[String]) -> Res<()> {
                 &data,
                 repeat,
             )?;
-            #[cfg_attr(not(feature = "script"), allow(unused_mut))]
+            #[cfg_attr(not(all(feature = "script", feature = "plot")), allow(unused_mut))]
             let mut rows_out = vec![("Rust", ours)];
-            #[cfg(feature = "script")]
+            #[cfg(all(feature = "script", feature = "plot"))]
             {
                 let script_out = data.join(format!("out_script_{variant}"));
                 let m = measured(

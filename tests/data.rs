@@ -327,7 +327,14 @@ fn a_stray_carriage_return_inside_a_line_is_not_a_number() {
     let p = write(d.path(), "cr.csv", "a,b\n1,2\n3\r4,5\n");
     let e = err(&p, &LogOptions::new());
     assert!(
-        matches!(&e, DataError::NotANumber { row: 3, column: 1, .. }),
+        matches!(
+            &e,
+            DataError::NotANumber {
+                row: 3,
+                column: 1,
+                ..
+            }
+        ),
         "{e}"
     );
 }
@@ -340,8 +347,19 @@ fn a_stray_carriage_return_inside_a_line_is_not_a_number() {
 fn numbers_in_every_written_form_read_as_the_standard_parser_reads_them() {
     let d = tempfile::tempdir().unwrap();
     let fields = [
-        "1.5", "-0.000", "+2", "1e-3", "-4.2E+2", " 7.25 ", "\"8.5\"", ".5", "5.", "0.1",
-        "123456789012345678901234", "9007199254740993", "1.7976931348623157e308",
+        "1.5",
+        "-0.000",
+        "+2",
+        "1e-3",
+        "-4.2E+2",
+        " 7.25 ",
+        "\"8.5\"",
+        ".5",
+        "5.",
+        "0.1",
+        "123456789012345678901234",
+        "9007199254740993",
+        "1.7976931348623157e308",
     ];
     let mut text = String::from("x;y\r\n");
     for f in fields {
@@ -379,7 +397,11 @@ fn a_generated_log_reads_bit_for_bit_as_the_standard_parser_reads_it() {
         for (k, w) in want.iter_mut().enumerate() {
             let frac = (next() % 10) as usize;
             let int = next() % 10u64.pow((next() % 13) as u32);
-            let mut f = if next() % 2 == 0 { format!("-{int}") } else { int.to_string() };
+            let mut f = if next() % 2 == 0 {
+                format!("-{int}")
+            } else {
+                int.to_string()
+            };
             if frac > 0 {
                 f.push('.');
                 for _ in 0..frac {
@@ -400,7 +422,10 @@ fn a_generated_log_reads_bit_for_bit_as_the_standard_parser_reads_it() {
     for (name, w) in ["a", "b", "c"].iter().zip(&want) {
         let got = &log.channel(name).unwrap().values;
         assert_eq!(got.len(), w.len());
-        let diff = got.iter().zip(w).position(|(g, w)| g.to_bits() != w.to_bits());
+        let diff = got
+            .iter()
+            .zip(w)
+            .position(|(g, w)| g.to_bits() != w.to_bits());
         assert_eq!(diff, None, "column {name}");
     }
 }

@@ -323,7 +323,9 @@ fn a_bad_number_deep_in_a_log_read_in_blocks_names_row_column_and_script_line() 
     assert_eq!(e.kind, "DataError");
     // Data row i sits on file row i + 2.
     assert!(
-        e.message.contains("bad.csv") && e.message.contains("row 4323") && e.message.contains("column 2"),
+        e.message.contains("bad.csv")
+            && e.message.contains("row 4323")
+            && e.message.contains("column 2"),
         "{}",
         e.message
     );
@@ -368,7 +370,12 @@ fn a_writer_never_finished_leaves_no_file_and_bad_blocks_are_refused() {
 w.append(#{ a: column([1.0, 2.0], "N") });
 w.append(#{ a: column([1.0], "m") });"#,
     );
-    assert_eq!((e.kind.as_str(), e.line), ("UnitError", 3), "{}", e.render());
+    assert_eq!(
+        (e.kind.as_str(), e.line),
+        ("UnitError", 3),
+        "{}",
+        e.render()
+    );
     assert!(e.message.contains("column `a`"), "{}", e.message);
     let e = err(
         &mut s,
@@ -381,4 +388,98 @@ w.append(#{ a: column([1.0, 2.0], "N"), b: column([1.0], "N") });"#,
     drop(s);
     let left: Vec<_> = std::fs::read_dir(dir.path()).unwrap().collect();
     assert!(left.is_empty(), "{left:?}");
+}
+
+/// The benchmark's script (`examples/reanalysis.rhai`, block by block) on a small log of the
+/// benchmark's shape, against the same steps over whole columns in a second cell.
+#[cfg(feature = "plot")]
+#[test]
+fn the_reanalysis_example_script_matches_the_whole_record_steps() {
+    use gaugebook::script::rhai::Dynamic;
+    let dir = tempfile::tempdir().unwrap();
+    // Four quarter-bridge channels and a reference load at 1 kHz (a fictional axial rig): a
+    // load programme of ramps and a 5 Hz block, the bridge law r = x/(4+2x), x = GF·ε.
+    let mut text = String::from("time_s,sg1_mVV,sg2_mVV,sg3_mVV,sg4_mVV,temp_C,load_ref_N\n");
+    let n = 30_000;
+    for i in 0..n {
+        let t = i as f64 * 1e-3;
+        let load = if t < 5.0 {
+            1600.0 * t
+        } else {
+            8000.0 + 4000.0 * (t * 31.4159).sin()
+        };
+        let e = load * 62.5e-9;
+        let r = |k: f64| {
+            let x = 2.1 * k * e;
+            1e3 * x / (4.0 + 2.0 * x) + 0.0002 * ((i * 7919 % 1000) as f64 / 1000.0 - 0.5)
+        };
+        text.push_str(&format!(
+            "{t:.3},{:.6},{:.6},{:.6},{:.6},23.000,{:.2}\n",
+            r(1.03),
+            r(-0.30),
+            r(0.97),
+            r(-0.29),
+            load + 3.0 * ((i * 104_729 % 1000) as f64 / 1000.0 - 0.5)
+        ));
+    }
+    let log = dir.path().join("rig.csv");
+    std::fs::write(&log, text).unwrap();
+    let here = std::path::Path::new(env!("CARGO_MANIFEST_DIR")).join("examples");
+    let source = std::fs::read_to_string(here.join("reanalysis.rhai")).unwrap();
+    let mut s = session_in(Some(dir.path()));
+    let path = |p: &Path| Dynamic::from(p.to_string_lossy().into_owned());
+    s.set_constant("LOG", path(&log));
+    s.set_constant("OUT_DIR", path(dir.path()));
+    s.set_constant("STEM", Dynamic::from("rig".to_string()));
+    s.set_constant("INPUT", Dynamic::from("rig.csv".to_string()));
+    s.set_constant("FORMAT", Dynamic::from("parquet".to_string()));
+    if let Err(e) = s.eval_cell(&source, &here.join("reanalysis.rhai").to_string_lossy()) {
+        panic!("{}", e.render());
+    }
+    for f in ["rig_strain.parquet", "rig_summary.json", "rig_load.png"] {
+        assert!(dir.path().join(f).is_file(), "{f} missing");
+    }
+    // The reference: the same steps over whole columns, written as JSON beside the summary.
+    run(
+        &mut s,
+        r#"
+        let f = read_log("rig.csv");
+        let design = #{ cutoff: 50.0 * Hz, rate: 1000.0 * Hz, order: 2 };
+        let out = #{};
+        for ch in ["sg1", "sg2", "sg3", "sg4"] {
+            let e = to_strain(f[ch], "quarter", 2.10);
+            let y = lowpass(e - e.slice(0, 1000).mean(), design);
+            let st = stats(y);
+            out[ch] = #{ mean_ue: st.mean.value("ue"), std_ue: st.std.value("ue"),
+                         max_ue: st.max.value("ue"), rising_mean_crossings: rising_crossings(y, st.mean) };
+            if ch == "sg1" { out.x = y; }
+        }
+        let load = lowpass(f["load_ref"], design);
+        let dx = out.x - out.x.mean();
+        out.b_N_per_ue = ((dx * (load - load.mean())).sum() / (dx * dx).sum()).value("N/ue");
+        out.remove("x");
+        write_text("reference.json", out.to_json());
+        "#,
+    );
+    let read = |f: &str| -> serde_json::Value {
+        serde_json::from_str(&std::fs::read_to_string(dir.path().join(f)).unwrap()).unwrap()
+    };
+    let (sum, reference) = (read("rig_summary.json"), read("reference.json"));
+    let close = |a: &serde_json::Value, b: &serde_json::Value, rel: f64| {
+        let (a, b) = (a.as_f64().unwrap(), b.as_f64().unwrap());
+        assert!((a - b).abs() <= rel * b.abs(), "{a} against {b}");
+    };
+    for ch in ["sg1", "sg2", "sg3", "sg4"] {
+        let (c, r) = (&sum["channels"][ch], &reference[ch]);
+        close(&c["mean_ue"], &r["mean_ue"], 1e-10);
+        close(&c["std_ue"], &r["std_ue"], 1e-10);
+        close(&c["max_ue"], &r["max_ue"], 1e-12);
+        assert_eq!(
+            c["rising_mean_crossings"], r["rising_mean_crossings"],
+            "{ch}"
+        );
+    }
+    close(&sum["fit"]["b_N_per_ue"], &reference["b_N_per_ue"], 1e-10);
+    assert_eq!(sum["rows"], 30_000);
+    assert!(sum["load_rainflow"]["cycles"].as_f64().unwrap() > 100.0);
 }

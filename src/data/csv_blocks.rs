@@ -99,8 +99,14 @@ pub(crate) fn read_blocks(mut s: CsvSetup, tx: SyncSender<Result<LogChunk, DataE
     let plan = s.plan.clone();
     std::thread::scope(|scope| {
         for _ in 0..workers {
-            let (format, plan, turn, job_rx, tx, free_tx) =
-                (&format, &plan, &turn, job_rx.clone(), tx.clone(), free_tx.clone());
+            let (format, plan, turn, job_rx, tx, free_tx) = (
+                &format,
+                &plan,
+                &turn,
+                job_rx.clone(),
+                tx.clone(),
+                free_tx.clone(),
+            );
             scope.spawn(move || work(format, plan, turn, &job_rx, &tx, &free_tx));
         }
         drop((free_tx, job_rx));

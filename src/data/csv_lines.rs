@@ -9,10 +9,10 @@
 //! space is no sample, and the file row of every sample is then kept; a line with another number
 //! of fields than the header is an error naming the row; an empty field is not a number.
 
+use super::DataError;
 use super::decimal::plain_decimal;
 use super::plan::Plan;
 use super::time::parse_timestamp_parts;
-use super::DataError;
 
 /// What [`LineFormat::read`] found besides the values.
 pub(crate) struct ReadLines {
@@ -91,10 +91,7 @@ impl LineFormat {
     ) -> Result<ReadLines, DataError> {
         let n = block.len();
         let mut non_finite = false;
-        let grouped = self
-            .roles
-            .iter()
-            .all(|r| !matches!(r, Role::Timestamp(_)));
+        let grouped = self.roles.iter().all(|r| !matches!(r, Role::Timestamp(_)));
         let mut lanes = vec![[0.0f64; LANES]; out.len()];
         let mut rows: Option<Vec<usize>> = None;
         let mut samples = 0usize;

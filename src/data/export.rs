@@ -103,6 +103,32 @@ pub struct ColumnWriter {
     names: Vec<String>,
     sink: Sink,
     decimals: Option<usize>,
+    /// Bytes of the file handed to the kernel's writeback so far.
+    writeback_mark: u64,
+}
+
+/// Bytes written after which the kernel is asked to start writing them to disk, so that the
+/// flush before the rename waits only for the last few (a 400 MB file waited 0.3 s for it at the
+/// end on the benchmark machine; a blocking flush every so often made the writer fall behind).
+const WRITEBACK_EVERY: u64 = 32 << 20;
+
+/// Asks the kernel to start writing bytes `from..to` of `file` to disk, without waiting.
+/// Best effort: the flush in `finish` still reports any failure.
+fn start_writeback(file: &File, from: u64, to: u64) {
+    #[cfg(target_os = "linux")]
+    {
+        // On Linux POSIX_FADV_DONTNEED starts asynchronous writeback of the range's dirty pages
+        // (mm/fadvise.c: a WB_SYNC_NONE write of the range) and drops the clean ones from the
+        // page cache; it never waits for the disk.
+        let _ = rustix::fs::fadvise(
+            file,
+            from,
+            std::num::NonZeroU64::new(to.saturating_sub(from)),
+            rustix::fs::Advice::DontNeed,
+        );
+    }
+    #[cfg(not(target_os = "linux"))]
+    let _ = (file, from, to);
 }
 
 enum Sink {
@@ -193,6 +219,7 @@ impl ColumnWriter {
             names: names.iter().map(|n| n.to_string()).collect(),
             sink,
             decimals: opts.decimals,
+            writeback_mark: 0,
         })
     }
 
@@ -222,6 +249,16 @@ impl ColumnWriter {
                 right: c.len(),
             });
         }
+        self.write_rows(columns, rows)?;
+        let written = self.handle.metadata().map_or(0, |m| m.len());
+        if written >= self.writeback_mark + WRITEBACK_EVERY {
+            start_writeback(&self.handle, self.writeback_mark, written);
+            self.writeback_mark = written;
+        }
+        Ok(())
+    }
+
+    fn write_rows(&mut self, columns: &[&[f64]], rows: usize) -> Result<(), DataError> {
         match &mut self.sink {
             Sink::Csv(out) => write_csv_rows(out, columns, self.decimals)
                 .map_err(|e| DataError::io(&self.path, "cannot write", e)),

@@ -14,8 +14,8 @@ use std::thread::JoinHandle;
 
 use polars::prelude::*;
 
-use super::plan::{ColumnPlan, Plan, make_plan, seconds};
 use super::csv_blocks::{CsvSetup, read_blocks, read_some};
+use super::plan::{ColumnPlan, Plan, make_plan, seconds};
 use super::time::parse_timestamp_parts;
 use super::{Channel, ChannelMeta, DataError, Log, LogFormat, LogOptions, Progress, SkippedRow};
 

@@ -169,7 +169,9 @@ pub(crate) struct LogWriter {
 
 impl fmt::Debug for LogWriter {
     fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
-        f.debug_struct("LogWriter").field("path", &self.path).finish()
+        f.debug_struct("LogWriter")
+            .field("path", &self.path)
+            .finish()
     }
 }
 
@@ -214,7 +216,9 @@ fn write_blocks(
                 buffers.resize_with(cols.len(), Vec::new);
                 for ((data, unit), buf) in cols.iter().zip(buffers.iter_mut()) {
                     buf.clear();
-                    if let Some(u) = unit.as_ref().filter(|u| u.factor() != 1.0 || u.offset() != 0.0)
+                    if let Some(u) = unit
+                        .as_ref()
+                        .filter(|u| u.factor() != 1.0 || u.offset() != 0.0)
                     {
                         buf.extend(data.iter().map(|&si| u.from_si(si)));
                     }
@@ -264,7 +268,9 @@ fn export_options(path: &std::path::Path, opts: Option<&Map>) -> ScriptResult<Ex
         if d.fract() != 0.0 || !(0.0..=17.0).contains(&d) {
             return Err(fault(
                 "ArgumentError",
-                format!("key `decimals` in options of {name} must be a whole number 0 to 17, found {d}"),
+                format!(
+                    "key `decimals` in options of {name} must be a whole number 0 to 17, found {d}"
+                ),
             ));
         }
         eo.decimals = Some(d as usize);
@@ -279,7 +285,10 @@ impl LogWriter {
             let c = v.read_lock::<Column>().ok_or_else(|| {
                 fault(
                     "ArgumentError",
-                    format!("column `{k}` to write must be a Column, found {}", type_of(v)),
+                    format!(
+                        "column `{k}` to write must be a Column, found {}",
+                        type_of(v)
+                    ),
                 )
             })?;
             columns.push((k.to_string(), c.clone()));
@@ -300,10 +309,8 @@ impl LogWriter {
             if columns.is_empty() {
                 return Err(fault("ArgumentError", "append() needs at least one column"));
             }
-            let (headers, _): (Vec<String>, Vec<_>) = columns
-                .iter()
-                .map(|(k, c)| header_and_unit(k, c))
-                .unzip();
+            let (headers, _): (Vec<String>, Vec<_>) =
+                columns.iter().map(|(k, c)| header_and_unit(k, c)).unzip();
             let names: Vec<&str> = headers.iter().map(String::as_str).collect();
             let w = ColumnWriter::create(&self.path, &names, opts)?;
             let (tx, rx) = sync_channel(2);
@@ -337,7 +344,10 @@ impl LogWriter {
                     "append() to {} takes the columns of the first block ({}), found {}",
                     self.path.display(),
                     open.keys.join(", "),
-                    keys.iter().map(|k| k.as_str()).collect::<Vec<_>>().join(", ")
+                    keys.iter()
+                        .map(|k| k.as_str())
+                        .collect::<Vec<_>>()
+                        .join(", ")
                 ),
             ));
         }
@@ -374,7 +384,10 @@ impl LogWriter {
         match &mut *state {
             State::Waiting(_) => Err(fault(
                 "ArgumentError",
-                format!("nothing was appended to the writer of {}", self.path.display()),
+                format!(
+                    "nothing was appended to the writer of {}",
+                    self.path.display()
+                ),
             )),
             State::Done(_) => Err(fault(
                 "ArgumentError",

@@ -836,7 +836,10 @@ pub(crate) fn register(engine: &mut Engine) {
             let c = v.read_lock::<Column>().ok_or_else(|| {
                 fault(
                     "ArgumentError",
-                    format!("item {i} of concat() must be a Column, found {}", type_of(v)),
+                    format!(
+                        "item {i} of concat() must be a Column, found {}",
+                        type_of(v)
+                    ),
                 )
             })?;
             parts.push(c.clone());

@@ -264,9 +264,10 @@ pub(crate) fn register(engine: &mut Engine) {
     )
     .register_into_engine(engine, |s: &mut RunningStats| -> ScriptResult<Record> {
         let summary = s.summary.summary()?;
-        let like = s.like.as_ref().ok_or_else(|| {
-            fault("ArgumentError", "running statistics without any sample")
-        })?;
+        let like = s
+            .like
+            .as_ref()
+            .ok_or_else(|| fault("ArgumentError", "running statistics without any sample"))?;
         Ok(summary_record(like, &summary, "running statistics"))
     });
 
