@@ -400,7 +400,7 @@ fn the_reanalysis_example_script_matches_the_whole_record_steps() {
     // Four quarter-bridge channels and a reference load at 1 kHz (a fictional axial rig): a
     // load programme of ramps and a 5 Hz block, the bridge law r = x/(4+2x), x = GF·ε.
     let mut text = String::from("time_s,sg1_mVV,sg2_mVV,sg3_mVV,sg4_mVV,temp_C,load_ref_N\n");
-    let n = 30_000;
+    let n: usize = 30_000;
     for i in 0..n {
         let t = i as f64 * 1e-3;
         let load = if t < 5.0 {
