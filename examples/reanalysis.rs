@@ -18,8 +18,8 @@
 //! through the cascade together) and folded into running statistics and a running line fit
 //! (`RunningSummary`, `RunningLine`: per-block sums merged by Chan et al.'s update), and the
 //! strain file is written by a third thread as the blocks come, so reading, computing and
-//! writing overlap. Only the mean crossings need the final mean: one pass over the kept blocks
-//! at the end, on two threads. `timings_s` gives the time the main thread spent in each stage (`read` is the time it
+//! writing overlap. Only the mean crossings and the fit residuals need the final mean and line:
+//! one pass over the kept blocks at the end, on two threads. `timings_s` gives the time the main thread spent in each stage (`read` is the time it
 //! waited for blocks; `write` the wait for the writer).
 //!
 //! `script` runs `examples/reanalysis.rhai`, the same steps written as a Gaugebook script (the
@@ -287,31 +287,40 @@ fn pipeline(args: &[String]) -> Res<()> {
     drop(wtx);
     drop(stream);
 
-    // e) force = a + b·strain, least squares (numpy.polyfit deg 1), with r² and the rmse of
-    //    the residuals, from the merged co-moments.
+    // e) force = a + b·strain, least squares (numpy.polyfit deg 1), from the merged co-moments.
     let t5 = Instant::now();
     let line = fit.fit()?;
-    let (a, b, r2, rmse) = (line.intercept, line.slope, line.r2, line.rmse);
+    let (a, b) = (line.intercept, line.slope);
     tm.fit += t5.elapsed().as_secs_f64();
 
-    // d) the crossings need the final mean: one pass over the kept blocks, on two threads
-    //    while the writer finishes.
+    // d) and e): the crossings need the final mean, and r² and the rmse the residuals about the
+    //    fitted line (a second pass keeps them free of the one-pass cancellation): one pass over
+    //    the kept blocks, on two threads while the writer finishes.
     let t6 = Instant::now();
     let means: Vec<f64> = moments.iter().map(RunningSummary::mean).collect();
-    let crossings = std::thread::scope(|s| {
+    let (crossings, ss_res) = std::thread::scope(|s| {
         let h = s.spawn(|| {
-            (2..4)
+            let c: Vec<usize> = (2..4)
                 .map(|k| rising_crossings(&kept[k], means[k]))
-                .collect::<Vec<usize>>()
+                .collect();
+            let res: f64 = kept[0]
+                .iter()
+                .zip(&kept[4])
+                .map(|(x, y)| pairwise_by(x.len(), &|i| (y[i] - (a + b * x[i])).powi(2)))
+                .sum();
+            (c, res)
         });
         let mut c: Vec<usize> = (0..2)
             .map(|k| rising_crossings(&kept[k], means[k]))
             .collect();
         // A counting thread only panics on a bug; pass that panic on.
-        c.extend(h.join().unwrap_or_else(|p| std::panic::resume_unwind(p)));
-        c
+        let (c2, res) = h.join().unwrap_or_else(|p| std::panic::resume_unwind(p));
+        c.extend(c2);
+        (c, res)
     });
     drop(kept);
+    let line = fit.fit_with_residuals(ss_res)?;
+    let (r2, rmse) = (line.r2, line.rmse);
     let mut stats = String::new();
     let z = zero.ok_or("zero")?;
     for (k, name) in CHANNELS.iter().enumerate() {

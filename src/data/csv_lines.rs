@@ -120,10 +120,10 @@ impl LineFormat {
                 p = q;
                 continue;
             }
-            for j in 0..count {
+            for &start in &starts[..count] {
                 let row = first_row + line;
                 line += 1;
-                if self.line(block, starts[j], row, out, &mut non_finite)? {
+                if self.line(block, start, row, out, &mut non_finite)? {
                     samples += 1;
                     if let Some(r) = rows.as_mut() {
                         r.push(row);

@@ -126,19 +126,19 @@ struct Open {
     keys: Vec<String>,
     dims: Vec<Dimension>,
     tx: Option<SyncSender<Message>>,
-    thread: Option<JoinHandle<Result<u64, DataError>>>,
+    thread: Option<JoinHandle<Result<u64, Box<DataError>>>>,
 }
 
 impl Open {
     /// Hangs up and waits for the thread: its result, or its failure as an error.
-    fn join(&mut self, path: &std::path::Path) -> Result<u64, DataError> {
+    fn join(&mut self, path: &std::path::Path) -> Result<u64, Box<DataError>> {
         self.tx = None;
         match self.thread.take().map(JoinHandle::join) {
             Some(Ok(r)) => r,
-            Some(Err(_)) | None => Err(DataError::Engine {
+            Some(Err(_)) | None => Err(Box::new(DataError::Engine {
                 path: path.to_path_buf(),
                 reason: "the writing thread stopped unexpectedly".into(),
-            }),
+            })),
         }
     }
 }
@@ -203,12 +203,12 @@ fn header_and_unit(name: &str, c: &Column) -> (String, Option<Unit>) {
 }
 
 /// The writing thread: converts each block to its units and appends it; completes the file on
-/// `Finish`, drops it on a hang-up.
+/// `Finish`, drops it on a hang-up. (The error is boxed only to keep the thread's result small.)
 fn write_blocks(
     mut w: ColumnWriter,
     rx: std::sync::mpsc::Receiver<Message>,
     path: PathBuf,
-) -> Result<u64, DataError> {
+) -> Result<u64, Box<DataError>> {
     let mut buffers: Vec<Vec<f64>> = Vec::new();
     for message in rx {
         match message {
@@ -233,13 +233,13 @@ fn write_blocks(
                     .collect();
                 w.append(&parts)?;
             }
-            Message::Finish => return w.finish(),
+            Message::Finish => return Ok(w.finish()?),
         }
     }
-    Err(DataError::Engine {
+    Err(Box::new(DataError::Engine {
         path,
         reason: "the writer was dropped before finish(); nothing was written".into(),
-    })
+    }))
 }
 
 fn export_options(path: &std::path::Path, opts: Option<&Map>) -> ScriptResult<ExportOptions> {
@@ -374,7 +374,7 @@ impl LogWriter {
             // The thread stopped on an error: that error is the answer.
             let r = open.join(&self.path);
             *state = State::Done(0);
-            r?;
+            r.map_err(|e| *e)?;
         }
         Ok(())
     }
@@ -399,7 +399,7 @@ impl LogWriter {
                 }
                 let r = open.join(&self.path);
                 *state = State::Done(*r.as_ref().unwrap_or(&0));
-                Ok(r? as INT)
+                Ok(r.map_err(|e| *e)? as INT)
             }
         }
     }

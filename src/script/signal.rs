@@ -725,10 +725,12 @@ mod plot {
     }
 
     /// The column's numbers in its display unit.
-    fn shown(c: &Column) -> ScriptResult<Vec<f64>> {
+    fn shown(c: &Column) -> ScriptResult<std::borrow::Cow<'_, [f64]>> {
         match c.unit() {
-            Some(u) => Ok(c.values_in(u.symbol())?),
-            None => Ok(c.data().as_ref().clone()),
+            // Already in its display unit (s, N, V): no copy of a long channel.
+            Some(u) if u.factor() == 1.0 && u.offset() == 0.0 => Ok(c.data().as_slice().into()),
+            Some(u) => Ok(c.values_in(u.symbol())?.into()),
+            None => Ok(c.data().as_slice().into()),
         }
     }
 

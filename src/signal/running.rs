@@ -400,6 +400,40 @@ impl RunningLine {
             rmse: (ss_res / self.n).sqrt(),
         })
     }
+
+    /// [`fit`](RunningLine::fit) with r² and the RMS residual from `ss_res`, the sum of squared
+    /// residuals Σ(y − a − b·x)² about the fitted line, found by a second pass over the pairs.
+    /// The one-pass figure Syy − Sxy²/Sxx loses about −log10(1 − r²) digits to cancellation (5
+    /// for r² = 0.99999); a second pass does not.
+    ///
+    /// ```
+    /// let mut l = gaugebook::RunningLine::new();
+    /// let (x, y) = ([0.0, 1.0, 2.0], [1.0, 2.5, 5.0]);
+    /// l.add(&x, &y)?;
+    /// let f = l.fit()?;
+    /// let ss: f64 = x.iter().zip(&y).map(|(x, y)| (y - f.intercept - f.slope * x).powi(2)).sum();
+    /// let g = l.fit_with_residuals(ss)?;
+    /// assert!((g.rmse - (ss / 3.0).sqrt()).abs() < 1e-15);
+    /// assert!((g.r2 - f.r2).abs() < 1e-12);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn fit_with_residuals(&self, ss_res: f64) -> Result<LineFit, PhysicsError> {
+        let mut f = self.fit()?;
+        if !(ss_res.is_finite() && ss_res >= 0.0) {
+            return Err(PhysicsError::invalid(
+                "the sum of squared residuals",
+                ss_res,
+                "a finite value of zero or more",
+            ));
+        }
+        f.r2 = if self.syy > 0.0 {
+            1.0 - ss_res / self.syy
+        } else {
+            1.0
+        };
+        f.rmse = (ss_res / self.n).sqrt();
+        Ok(f)
+    }
 }
 
 #[cfg(test)]
