@@ -483,3 +483,30 @@ fn the_reanalysis_example_script_matches_the_whole_record_steps() {
     assert_eq!(sum["rows"], 30_000);
     assert!(sum["load_rainflow"]["cycles"].as_f64().unwrap() > 100.0);
 }
+
+/// The README's block-by-block example runs as printed, on a log of its shape.
+#[test]
+fn the_readme_block_by_block_example_runs() {
+    let readme = std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/README.md")).unwrap();
+    let from = readme.find("**A long test log, block by block.**").unwrap();
+    let start = from + readme[from..].find("```rhai\n").unwrap() + "```rhai\n".len();
+    let code = &readme[start..start + readme[start..].find("```").unwrap()];
+    let dir = tempfile::tempdir().unwrap();
+    let mut text = String::from("time_s,sg1_mVV,load_ref_N\n");
+    for i in 0..20_000 {
+        let t = i as f64 * 1e-3;
+        let load = 4000.0 + 3000.0 * (t * 6.0).sin();
+        // 62.5 µε/kN, GF 2.10, the quarter-bridge law r = x/(4 + 2x).
+        let x = 2.1 * load * 62.5e-9;
+        text.push_str(&format!("{t:.3},{:.6},{load:.2}\n", 1e3 * x / (4.0 + 2.0 * x)));
+    }
+    std::fs::write(dir.path().join("run42.csv"), text).unwrap();
+    let mut s = session_in(Some(dir.path()));
+    run(&mut s, code);
+    // 62.5 µε/kN is 16 N/µε; the strain file holds every sample.
+    run(
+        &mut s,
+        r#"assert_close(fit.line().b, q("16 N/ue"), 1e-6);
+           assert_eq(read_log("strain.parquet").rows, 20000);"#,
+    );
+}
