@@ -487,7 +487,8 @@ fn the_reanalysis_example_script_matches_the_whole_record_steps() {
 /// The README's block-by-block example runs as printed, on a log of its shape.
 #[test]
 fn the_readme_block_by_block_example_runs() {
-    let readme = std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/README.md")).unwrap();
+    let readme =
+        std::fs::read_to_string(concat!(env!("CARGO_MANIFEST_DIR"), "/README.md")).unwrap();
     let from = readme.find("**A long test log, block by block.**").unwrap();
     let start = from + readme[from..].find("```rhai\n").unwrap() + "```rhai\n".len();
     let code = &readme[start..start + readme[start..].find("```").unwrap()];
@@ -498,7 +499,10 @@ fn the_readme_block_by_block_example_runs() {
         let load = 4000.0 + 3000.0 * (t * 6.0).sin();
         // 62.5 µε/kN, GF 2.10, the quarter-bridge law r = x/(4 + 2x).
         let x = 2.1 * load * 62.5e-9;
-        text.push_str(&format!("{t:.3},{:.6},{load:.2}\n", 1e3 * x / (4.0 + 2.0 * x)));
+        text.push_str(&format!(
+            "{t:.3},{:.6},{load:.2}\n",
+            1e3 * x / (4.0 + 2.0 * x)
+        ));
     }
     std::fs::write(dir.path().join("run42.csv"), text).unwrap();
     let mut s = session_in(Some(dir.path()));
@@ -509,4 +513,14 @@ fn the_readme_block_by_block_example_runs() {
         r#"assert_close(fit.line().b, q("16 N/ue"), 1e-6);
            assert_eq(read_log("strain.parquet").rows, 20000);"#,
     );
+}
+
+#[cfg(feature = "plot")]
+#[test]
+fn a_figure_saved_by_a_relative_path_lands_in_the_script_folder() {
+    let dir = tempfile::tempdir().unwrap();
+    let mut s = session_in(Some(dir.path()));
+    run(&mut s, r#"histogram(column([1.0, 2.0, 2.5], "N"), 2).save("fig.svg");"#);
+    let svg = std::fs::read_to_string(dir.path().join("fig.svg")).unwrap();
+    assert!(svg.starts_with("<svg"), "{}", &svg[..svg.len().min(40)]);
 }

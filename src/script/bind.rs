@@ -2,6 +2,7 @@
 //! arguments, and result records. See the convention in `src/script/mod.rs`.
 
 use std::fmt::Display;
+use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
 use rhai::{
@@ -583,6 +584,35 @@ pub(crate) fn bundle_map(b: &MimeBundle) -> Map {
     b.iter()
         .map(|(k, v)| (k.into(), Dynamic::from(v.to_string())))
         .collect()
+}
+
+/// The value of the engine's default tag: the session's script folder, if any.
+pub(crate) fn script_dir_tag(dir: Option<&Path>) -> Dynamic {
+    dir.map_or(Dynamic::UNIT, |d| {
+        Dynamic::from(d.to_string_lossy().to_string())
+    })
+}
+
+/// A script path made absolute against the script's folder (the calling file's folder, else the session's script folder, else the current directory).
+pub(crate) fn resolve(ctx: &NativeCallContext, path: &str) -> PathBuf {
+    let p = PathBuf::from(path);
+    if p.is_absolute() {
+        return p;
+    }
+    let from_source = ctx
+        .call_source()
+        .map(Path::new)
+        .filter(|s| s.is_file())
+        .and_then(Path::parent)
+        .map(Path::to_path_buf);
+    let from_session = ctx.tag().and_then(|t| {
+        t.read_lock::<ImmutableString>()
+            .map(|s| PathBuf::from(s.as_str()))
+    });
+    match from_source.or(from_session) {
+        Some(dir) => dir.join(p),
+        None => p,
+    }
 }
 
 #[cfg(test)]

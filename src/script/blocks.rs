@@ -15,9 +15,9 @@ use std::thread::JoinHandle;
 
 use rhai::{Engine, INT, Map, NativeCallContext};
 
-use super::bind::{Options, ScriptResult, fault, func, type_of};
+use super::bind::{Options, ScriptResult, fault, func, resolve, type_of};
 use super::column::Column;
-use super::data::{Frame, log_options, resolve};
+use super::data::{Frame, log_options};
 use crate::units::Unit;
 use crate::{
     ColumnWriter, DataError, Dimension, ExportOptions, LogFormat, LogOptions, LogStream,

@@ -16,7 +16,7 @@ use std::sync::atomic::{AtomicU64, Ordering};
 use rhai::{Array, Dynamic, Engine, EvalAltResult, INT, ImmutableString, Map, NativeCallContext};
 
 use super::bind::{
-    Options, Record, ScriptResult, Values, fault, func, number, shaped, type_of, values,
+    Options, Record, ScriptResult, Values, fault, func, number, resolve, shaped, type_of, values,
 };
 use super::column::Column;
 use crate::units::{
@@ -39,35 +39,6 @@ impl From<DataError> for Box<EvalAltResult> {
             DataError::Physics(p) => p.into(),
             other => fault("DataError", other.to_string()),
         }
-    }
-}
-
-/// The value of the engine's default tag: the session's script folder, if any.
-pub(crate) fn script_dir_tag(dir: Option<&Path>) -> Dynamic {
-    dir.map_or(Dynamic::UNIT, |d| {
-        Dynamic::from(d.to_string_lossy().to_string())
-    })
-}
-
-/// A script path made absolute against the script's folder (see the module text).
-pub(super) fn resolve(ctx: &NativeCallContext, path: &str) -> PathBuf {
-    let p = PathBuf::from(path);
-    if p.is_absolute() {
-        return p;
-    }
-    let from_source = ctx
-        .call_source()
-        .map(Path::new)
-        .filter(|s| s.is_file())
-        .and_then(Path::parent)
-        .map(Path::to_path_buf);
-    let from_session = ctx.tag().and_then(|t| {
-        t.read_lock::<ImmutableString>()
-            .map(|s| PathBuf::from(s.as_str()))
-    });
-    match from_source.or(from_session) {
-        Some(dir) => dir.join(p),
-        None => p,
     }
 }
 

@@ -113,9 +113,9 @@ pub(crate) fn build(options: &SessionOptions) -> Parts {
         sources.clone(),
     ));
     engine.set_module_resolver(ResolverHandle(resolver.clone()));
-    // Native functions that take file paths (`read_log`) resolve them against the script folder.
-    #[cfg(feature = "data")]
-    engine.set_default_tag(super::data::script_dir_tag(options.script_dir.as_deref()));
+    // Native functions that take file paths (`read_log`, `save`) resolve them against the
+    // script folder.
+    engine.set_default_tag(bind::script_dir_tag(options.script_dir.as_deref()));
 
     let s = sink.clone();
     engine.on_print(move |text| s.get().stdout(&format!("{text}\n")));

@@ -716,6 +716,7 @@ mod plot {
 
     use super::*;
     use crate::{Axis, Panel, Plot};
+    use rhai::NativeCallContext;
 
     fn axis_of(c: &Column, name: &str) -> Axis {
         Axis::new(
@@ -862,7 +863,8 @@ mod plot {
             &["figure: Plot", "path: String"],
             "()",
             r#"
-            Writes the figure to a `.svg` or `.png` file (a temporary file, then renamed).
+            Writes the figure to a `.svg` or `.png` file (a temporary file, then renamed); a
+            relative path is taken from the script's folder.
             ```rhai
             let p = histogram(column([1.0, 2.0], "N"), 2);
             let refused = false;
@@ -871,8 +873,12 @@ mod plot {
             ```
         "#,
         )
-        .register_into_engine(engine, |p: &mut Plot, path: &str| -> ScriptResult<()> {
-            p.save(path).map_err(|e| fault("PlotError", e.to_string()))
-        });
+        .register_into_engine(
+            engine,
+            |ctx: NativeCallContext, p: &mut Plot, path: &str| -> ScriptResult<()> {
+                p.save(super::super::bind::resolve(&ctx, path))
+                    .map_err(|e| fault("PlotError", e.to_string()))
+            },
+        );
     }
 }
