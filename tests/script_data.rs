@@ -520,7 +520,10 @@ fn the_readme_block_by_block_example_runs() {
 fn a_figure_saved_by_a_relative_path_lands_in_the_script_folder() {
     let dir = tempfile::tempdir().unwrap();
     let mut s = session_in(Some(dir.path()));
-    run(&mut s, r#"histogram(column([1.0, 2.0, 2.5], "N"), 2).save("fig.svg");"#);
+    run(
+        &mut s,
+        r#"histogram(column([1.0, 2.0, 2.5], "N"), 2).save("fig.svg");"#,
+    );
     let svg = std::fs::read_to_string(dir.path().join("fig.svg")).unwrap();
     assert!(svg.starts_with("<svg"), "{}", &svg[..svg.len().min(40)]);
 }

@@ -15,9 +15,8 @@ use std::thread::JoinHandle;
 
 use rhai::{Engine, INT, Map, NativeCallContext};
 
-use super::bind::{Options, ScriptResult, fault, func, resolve, type_of};
-use super::column::Column;
-use super::data::{Frame, log_options};
+use super::bind::{Options, ScriptResult, fault, func, resolve};
+use super::data::{Frame, decimals_option, header_and_unit, log_options, map_columns};
 use crate::units::Unit;
 use crate::{
     ColumnWriter, DataError, Dimension, ExportOptions, LogFormat, LogOptions, LogStream,
@@ -193,15 +192,6 @@ impl ToMime for LogWriter {
     }
 }
 
-/// The header a column is written under and the unit its values are written in (as the
-/// whole-column writers: `name [unit]`, values in the column's unit, plain SI without one).
-fn header_and_unit(name: &str, c: &Column) -> (String, Option<Unit>) {
-    match c.unit() {
-        Some(u) if !u.symbol().is_empty() => (format!("{name} [{}]", u.symbol()), Some(u.clone())),
-        _ => (name.to_string(), None),
-    }
-}
-
 /// The writing thread: converts each block to its units and appends it; completes the file on
 /// `Finish`, drops it on a hang-up. (The error is boxed only to keep the thread's result small.)
 fn write_blocks(
@@ -264,35 +254,13 @@ fn export_options(path: &std::path::Path, opts: Option<&Map>) -> ScriptResult<Ex
             }
         });
     }
-    if let Some(d) = o.opt_f64("decimals")? {
-        if d.fract() != 0.0 || !(0.0..=17.0).contains(&d) {
-            return Err(fault(
-                "ArgumentError",
-                format!(
-                    "key `decimals` in options of {name} must be a whole number 0 to 17, found {d}"
-                ),
-            ));
-        }
-        eo.decimals = Some(d as usize);
-    }
+    eo.decimals = decimals_option(&o, name)?;
     Ok(eo)
 }
 
 impl LogWriter {
     fn append(&self, cols: &Map) -> ScriptResult<()> {
-        let mut columns: Vec<(String, Column)> = Vec::with_capacity(cols.len());
-        for (k, v) in cols {
-            let c = v.read_lock::<Column>().ok_or_else(|| {
-                fault(
-                    "ArgumentError",
-                    format!(
-                        "column `{k}` to write must be a Column, found {}",
-                        type_of(v)
-                    ),
-                )
-            })?;
-            columns.push((k.to_string(), c.clone()));
-        }
+        let columns = map_columns(cols)?;
         let rows = columns.first().map_or(0, |(_, c)| c.len());
         if let Some((k, c)) = columns.iter().find(|(_, c)| c.len() != rows) {
             return Err(fault(

@@ -9,7 +9,7 @@
 //! `DataError` script error at the call position; its text names the file, row and column.
 
 use std::fmt;
-use std::path::{Path, PathBuf};
+use std::path::PathBuf;
 use std::sync::Arc;
 use std::sync::atomic::{AtomicU64, Ordering};
 
@@ -668,7 +668,9 @@ fn to_strain(x: Dynamic, name: &str, gf: Dynamic, steps: StrainSteps) -> ScriptR
     )
 }
 
-fn columns_of(cols: &Map) -> ScriptResult<Vec<(String, Vec<f64>)>> {
+/// The `Column`s of a map of name to column (in name order), or an error naming the first
+/// value that is not one.
+pub(super) fn map_columns(cols: &Map) -> ScriptResult<Vec<(String, Column)>> {
     cols.iter()
         .map(|(k, v)| {
             let c = v.read_lock::<Column>().ok_or_else(|| {
@@ -680,19 +682,46 @@ fn columns_of(cols: &Map) -> ScriptResult<Vec<(String, Vec<f64>)>> {
                     ),
                 )
             })?;
-            Ok(header_values(k, &c))
+            Ok((k.to_string(), c.clone()))
         })
         .collect()
 }
 
+fn columns_of(cols: &Map) -> ScriptResult<Vec<(String, Vec<f64>)>> {
+    Ok(map_columns(cols)?
+        .iter()
+        .map(|(k, c)| header_values(k, c))
+        .collect())
+}
+
+/// The header a column is written under and the unit its values are written in: `name [unit]`
+/// and the column's unit, or the bare name and plain SI values without one.
+pub(super) fn header_and_unit(name: &str, c: &Column) -> (String, Option<Unit>) {
+    match c.unit() {
+        Some(u) if !u.symbol().is_empty() => (format!("{name} [{}]", u.symbol()), Some(u.clone())),
+        _ => (name.to_string(), None),
+    }
+}
+
 /// `name [unit]` and the values in the column's display unit (read back with their unit).
 fn header_values(name: &str, c: &Column) -> (String, Vec<f64>) {
-    match c.unit() {
-        Some(u) if !u.symbol().is_empty() => (
-            format!("{name} [{}]", u.symbol()),
-            c.data().iter().map(|&si| u.from_si(si)).collect(),
-        ),
-        _ => (name.to_string(), owned(c)),
+    match header_and_unit(name, c) {
+        (h, Some(u)) => (h, c.data().iter().map(|&si| u.from_si(si)).collect()),
+        (h, None) => (h, owned(c)),
+    }
+}
+
+/// The `decimals` key of a writer's options: fixed decimals for CSV, 0 to 17.
+pub(super) fn decimals_option(o: &Options, name: &str) -> ScriptResult<Option<usize>> {
+    match o.opt_f64("decimals")? {
+        None => Ok(None),
+        Some(d) if d.fract() == 0.0 && (0.0..=17.0).contains(&d) => Ok(Some(d as usize)),
+        Some(d) => Err(fault(
+            "ArgumentError",
+            format!(
+                "key `decimals` in options of {name} must be a whole number 0 to 17, found {d}"
+            ),
+        )),
     }
 }
 
@@ -713,18 +742,7 @@ fn write(
         ..Default::default()
     };
     if let Some(m) = opts {
-        let o = Options::new(m, name, &["decimals"])?;
-        if let Some(d) = o.opt_f64("decimals")? {
-            if d.fract() != 0.0 || !(0.0..=17.0).contains(&d) {
-                return Err(fault(
-                    "ArgumentError",
-                    format!(
-                        "key `decimals` in options of {name} must be a whole number 0 to 17, found {d}"
-                    ),
-                ));
-            }
-            eo.decimals = Some(d as usize);
-        }
+        eo.decimals = decimals_option(&Options::new(m, name, &["decimals"])?, name)?;
     }
     let refs: Vec<(&str, &[f64])> = cols
         .iter()
