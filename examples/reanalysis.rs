@@ -31,7 +31,8 @@
 //! `compare` generates the logs into `target/benchdata` with `gen_testlog.py` when missing (with
 //! the Parquet copy when a pyarrow Python is found), then runs the peer, this pipeline (and the
 //! script, when built with `script` and `plot`) and bare polars reads, each `--repeat` times under
-//! `/usr/bin/time -v`, checks that every summary agrees with the peer's, and prints medians of
+//! `/usr/bin/time -v` (each after a `sync`, so that no run pays for the writeback of the one
+//! before), checks that every summary agrees with the peer's, and prints medians of
 //! wall time, CPU time and peak memory, their ratios, and the load average at the runs' starts.
 
 use std::collections::BTreeMap;
@@ -630,6 +631,9 @@ fn measured(cmd: &[&str], cwd: &Path, repeat: usize) -> Res<Measured> {
     let mut runs = Vec::new();
     let mut loads = Vec::new();
     for _ in 0..repeat.max(1) {
+        // Every run starts with the disk caught up: without this, a run pays for the writeback
+        // of the previous run's output (the peer leaves 400 MB unflushed at 10 M rows).
+        let _ = Command::new("sync").status();
         loads.push(load_average());
         runs.push(timed(cmd, cwd)?);
     }
