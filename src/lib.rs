@@ -121,9 +121,9 @@ pub use data::{
     DriftLine, ExportOptions, Gap, HeaderUnit, LeadWires, Log, LogChunk, LogFormat, LogOptions,
     LogStream, NoProgress, Progress, SkippedRow, TemperatureCompensation, TerminalProgress,
     TimeAxis, TimeColumn, channel_to_strain, compensate_temperature, correct_lead_wires, find_gaps,
-    median_step, open_log, parse_timestamp, ratio_to_strain, read_log, read_log_with_progress,
-    remove_drift, subtract_zero, window_by_time, write_columns, write_log, write_text_atomic,
-    zero_of,
+    median_step, open_log, parse_timestamp, ratio_to_strain, ratio_to_strain_in_place, read_log,
+    read_log_with_progress, remove_drift, subtract_zero, window_by_time, write_columns, write_log,
+    write_text_atomic, zero_of,
 };
 
 #[cfg(feature = "cli")]

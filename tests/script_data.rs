@@ -527,3 +527,31 @@ fn a_figure_saved_by_a_relative_path_lands_in_the_script_folder() {
     let svg = std::fs::read_to_string(dir.path().join("fig.svg")).unwrap();
     assert!(svg.starts_with("<svg"), "{}", &svg[..svg.len().min(40)]);
 }
+
+#[test]
+fn a_column_taken_out_of_a_frame_converts_as_the_shared_one_does() {
+    let dir = tempfile::tempdir().unwrap();
+    std::fs::write(
+        dir.path().join("a.csv"),
+        "time_s,sg1_mVV\n0,0.5\n1,-0.25\n2,1.75\n",
+    )
+    .unwrap();
+    let mut s = session_in(Some(dir.path()));
+    run(
+        &mut s,
+        r#"
+        let f = read_log("a.csv");
+        let copied = to_strain(f["sg1"], "quarter", 2.1);
+        let owned = to_strain(f.remove("sg1"), "quarter", 2.1);
+        assert_eq(owned.values("ue"), copied.values("ue"));
+        assert_eq(f.names, ["time"]);
+        "#,
+    );
+    let e = err(&mut s, r#"let g = read_log("a.csv"); g.remove("time");"#);
+    assert!(e.message.contains("stays in the frame"), "{}", e.message);
+    let e = err(
+        &mut s,
+        r#"let g = read_log("a.csv"); g.remove("sg1"); g.remove("sg1");"#,
+    );
+    assert_eq!(e.kind, "PropertyNotFound", "{}", e.render());
+}

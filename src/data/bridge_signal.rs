@@ -118,6 +118,32 @@ pub fn ratio_to_strain(
     Ok(ratios.iter().map(|&r| inv.apply_or_nan(r)).collect())
 }
 
+/// [`ratio_to_strain`] in the buffer: each output ratio (V/V) replaced by its strain (m/m), NaN
+/// where the bridge cannot produce the ratio. For long channels that are not needed as ratios
+/// afterwards (no second buffer, no fresh memory).
+///
+/// ```
+/// use gaugebook::{Arrangement, ratio_to_strain, ratio_to_strain_in_place};
+/// let mut r = vec![0.0, 1.0e-3, 0.9];
+/// ratio_to_strain_in_place(&mut r, Arrangement::Quarter, 2.0, 0.3)?;
+/// let e = ratio_to_strain(&[0.0, 1.0e-3, 0.9], Arrangement::Quarter, 2.0, 0.3)?;
+/// assert_eq!(r[..2], e[..2]);
+/// assert!(r[2].is_nan());
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
+pub fn ratio_to_strain_in_place(
+    ratios: &mut [f64],
+    arrangement: Arrangement,
+    gauge_factor: f64,
+    poisson: f64,
+) -> Result<(), PhysicsError> {
+    let inv = arrangement.inverse(gauge_factor, poisson)?;
+    for r in ratios.iter_mut() {
+        *r = inv.apply_or_nan(*r);
+    }
+    Ok(())
+}
+
 /// The lead wires of a channel, as the bridge module models them: a quarter bridge's two- or
 /// three-wire connection, or a full bridge's four- or six-wire supply.
 ///

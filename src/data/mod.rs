@@ -26,6 +26,7 @@ mod zero;
 
 pub use bridge_signal::{
     AdcScale, LeadWires, channel_to_strain, correct_lead_wires, ratio_to_strain,
+    ratio_to_strain_in_place,
 };
 pub use calibration::{Calibration, CalibrationModel};
 pub use error::DataError;

@@ -26,8 +26,9 @@ use crate::{
     AdcScale, Arrangement, Calibration, CalibrationModel, Channel, DataError, ExportOptions, Gap,
     Gauge, LeadWire, LeadWires, LogFormat, LogOptions, MimeBundle, OutputRatio, QuarterLeads,
     QuarterWiring, SkippedRow, SupplyLeads, SupplyWiring, TemperatureCompensation, TimeColumn,
-    ToMime, compensate_temperature, correct_lead_wires, html_escape, ratio_to_strain, read_log,
-    remove_drift, window_by_time, write_columns, write_text_atomic, zero_of,
+    ToMime, compensate_temperature, correct_lead_wires, html_escape, ratio_to_strain,
+    ratio_to_strain_in_place, read_log, remove_drift, window_by_time, write_columns,
+    write_text_atomic, zero_of,
 };
 use uom::si::electric_potential::volt;
 use uom::si::electrical_resistance::ohm;
@@ -163,6 +164,27 @@ impl Frame {
                     ),
                 )
             })
+    }
+
+    /// The column `name` handed over: removed from the frame (so a conversion of it can work in
+    /// its buffer), the time column excepted.
+    fn remove(&mut self, name: &str) -> ScriptResult<Column> {
+        let c = self.col(name)?;
+        let k = self
+            .columns
+            .iter()
+            .zip(&self.headers)
+            .position(|((n, _), h)| n == name || h == name)
+            .unwrap_or(0);
+        if self.has_time && k == 0 {
+            return Err(fault(
+                "ArgumentError",
+                format!("the time column `{name}` stays in the frame; read it with `.time`"),
+            ));
+        }
+        drop(c);
+        self.headers.remove(k);
+        Ok(self.columns.remove(k).1)
     }
 
     fn time(&self) -> Dynamic {
@@ -652,17 +674,27 @@ fn to_strain(x: Dynamic, name: &str, gf: Dynamic, steps: StrainSteps) -> ScriptR
             Values::Many(c) => Values::Many(Arc::new(adc.ratios(&c))),
         },
     };
-    let mut strain = match &v {
-        Values::One(r) => vec![ratio_to_strain(&[*r], a, gf, nu)?[0]],
-        Values::Many(r) => ratio_to_strain(r, a, gf, nu)?,
+    // The argument's hold on the samples goes, so a column no one else holds (a temporary, or
+    // one taken out of its frame with `remove`) is converted in its own buffer.
+    drop(x);
+    let (one, mut strain) = match v {
+        Values::One(r) => (true, vec![ratio_to_strain(&[r], a, gf, nu)?[0]]),
+        Values::Many(r) => match Arc::try_unwrap(r) {
+            Ok(mut owned) => {
+                ratio_to_strain_in_place(&mut owned, a, gf, nu)?;
+                (false, owned)
+            }
+            Err(shared) => (false, ratio_to_strain(&shared, a, gf, nu)?),
+        },
     };
     if let Some(l) = &steps.leads {
         correct_lead_wires(&mut strain, &leads_arg(l, gf, "to_strain()")?);
     }
     shaped(
-        match v {
-            Values::One(_) => Values::One(strain[0]),
-            Values::Many(_) => Values::Many(Arc::new(strain)),
+        if one {
+            Values::One(strain[0])
+        } else {
+            Values::Many(Arc::new(strain))
         },
         "µε",
     )
@@ -913,6 +945,26 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |f: &mut Frame, name: &str| f.col(name));
+
+    func(
+        "remove",
+        &["frame: Frame", "name: String"],
+        "Column",
+        r#"
+        A column taken out of the frame (by name or header text): the frame no longer holds it,
+        so `to_strain(b.remove("sg1"), …)` converts in the column's own buffer instead of a copy,
+        which saves memory and time on long logs. The time column stays (`.time`).
+        ```rhai
+        let p = temp_path("a.csv");
+        write_text(p, "t,sg1_mVV\n0,0.5\n1,1.0\n");
+        let f = read_log(p);
+        let e = to_strain(f.remove("sg1"), "quarter", 2.0);
+        assert_eq(f.names, ["t"]);
+        assert_close(e[0], q("1001.001001001001 ue"), 1e-12); // 4r/(F(1-2r)), r = 0.5e-3
+        ```
+    "#,
+    )
+    .register_into_engine(engine, |f: &mut Frame, name: &str| f.remove(name));
 
     func(
         "to_strain",
