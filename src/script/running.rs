@@ -10,13 +10,15 @@
 use std::fmt;
 use std::sync::Arc;
 
-use rhai::{Engine, INT, Map};
+use rhai::{Array, Dynamic, Engine, INT, Map};
 
-use super::bind::{Record, ScriptResult, fault, func};
+use super::bind::{Record, ScriptResult, fault, func, type_of};
 use super::column::Column;
 use super::signal::{design, quantity_like, same_unit, summary_record};
 use crate::units::Quantity;
-use crate::{FilterBand, MimeBundle, RunningLine, RunningSummary, StreamingFilter, ToMime};
+use crate::{
+    FilterBand, MimeBundle, RunningLine, RunningSummary, StreamingBank, StreamingFilter, ToMime,
+};
 
 /// An empty column with `c`'s dimension, kind and unit: the template results are shown in.
 fn template(c: &Column) -> Column {
@@ -47,12 +49,17 @@ fn check_like(like: &mut Option<Column>, x: &Column, what: &str) -> ScriptResult
     }
 }
 
-/// A causal filter whose state carries over from one `apply` to the next.
+/// A causal filter whose state carries over from one `apply` to the next: of one channel, or
+/// (applied to arrays) of several channels run side by side in a bank.
 #[derive(Clone, Debug)]
 pub(crate) struct RunningFilter {
     filter: StreamingFilter,
+    /// Made by the first `apply` to an array, for that many channels.
+    bank: Option<StreamingBank>,
     band: &'static str,
     like: Option<Column>,
+    /// The units of the channels of the bank, from the first array.
+    likes: Vec<Column>,
 }
 
 impl fmt::Display for RunningFilter {
@@ -125,6 +132,8 @@ fn running_filter(band: FilterBand, opts: &Map, name: &str) -> ScriptResult<Runn
     }
     Ok(RunningFilter {
         filter: StreamingFilter::new(f),
+        bank: None,
+        likes: Vec::new(),
         band: match band {
             FilterBand::LowPass => "low-pass",
             FilterBand::HighPass => "high-pass",
@@ -198,12 +207,99 @@ pub(crate) fn register(engine: &mut Engine) {
     .register_into_engine(
         engine,
         |f: &mut RunningFilter, x: Column| -> ScriptResult<Column> {
+            if f.bank.is_some() {
+                return Err(fault(
+                    "ArgumentError",
+                    "this running filter was started on an array of channels; use one filter per way of calling it",
+                ));
+            }
             check_like(&mut f.like, &x, "this running filter")?;
             let like = template(&x);
             // In place when the block is a temporary (`f.apply(e - z)`), else on a copy.
             let mut y = x.into_data();
             f.filter.process(&mut y)?;
             Ok(same_unit(&like, y))
+        },
+    );
+
+    func(
+        "apply",
+        &["filter: RunningFilter", "channels: Array"],
+        "Array",
+        r#"
+        Filters the next block of several channels at once (an array of columns of one length),
+        run side by side, four to a pass; the result is the array of filtered columns, each in
+        its channel's unit. The first array fixes the number of channels and their dimensions;
+        a filter used on arrays is not used on single columns, nor the other way round.
+        ```rhai
+        let design = #{ cutoff: 50.0 * Hz, rate: 1000.0 * Hz, order: 2 };
+        let a = column([1.0, 0.0, 2.0, 5.0], "ue");
+        let b = column([3.0, 3.0, 1.0, 0.0], "N");
+        let f = running_lowpass(design);
+        let first = f.apply([a.slice(0, 2), b.slice(0, 2)]);
+        let next = f.apply([a.slice(2, 4), b.slice(2, 4)]);
+        assert_close(next[0][1], lowpass(a, design)[3], 1e-12);
+        assert_close(next[1][1], lowpass(b, design)[3], 1e-12);
+        assert_eq(first.len(), 2);
+        ```
+    "#,
+    )
+    .register_into_engine(
+        engine,
+        |f: &mut RunningFilter, channels: Array| -> ScriptResult<Array> {
+            if f.like.is_some() {
+                return Err(fault(
+                    "ArgumentError",
+                    "this running filter was started on single columns; use one filter per way of calling it",
+                ));
+            }
+            let mut cols = Vec::with_capacity(channels.len());
+            for (i, v) in channels.into_iter().enumerate() {
+                let what = type_of(&v);
+                cols.push(v.try_cast::<Column>().ok_or_else(|| {
+                    fault(
+                        "ArgumentError",
+                        format!("item {i} of the channels to filter must be a Column, found {what}"),
+                    )
+                })?);
+            }
+            if f.bank.is_none() {
+                f.bank = Some(StreamingBank::new(f.filter.filter().clone(), cols.len()));
+                f.likes = cols.iter().map(template).collect();
+            }
+            if cols.len() != f.likes.len() {
+                return Err(fault(
+                    "ArgumentError",
+                    format!(
+                        "this running filter was started on {} channels, found {}",
+                        f.likes.len(),
+                        cols.len()
+                    ),
+                ));
+            }
+            for (i, (c, l)) in cols.iter().zip(&f.likes).enumerate() {
+                if c.dimension() != l.dimension() {
+                    return Err(fault(
+                        "UnitError",
+                        format!(
+                            "channel {i} of this running filter was a column of {}, now one of {}",
+                            l.dimension(),
+                            c.dimension()
+                        ),
+                    ));
+                }
+            }
+            // In place for columns no one else holds (`f.apply([a - z, …])`), else on copies.
+            let mut data: Vec<Vec<f64>> = cols.into_iter().map(Column::into_data).collect();
+            let mut parts: Vec<&mut [f64]> = data.iter_mut().map(|v| &mut v[..]).collect();
+            if let Some(bank) = f.bank.as_mut() {
+                bank.process(&mut parts)?;
+            }
+            Ok(data
+                .into_iter()
+                .zip(&f.likes)
+                .map(|(v, l)| Dynamic::from(same_unit(l, v)))
+                .collect())
         },
     );
 
