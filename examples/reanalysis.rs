@@ -46,7 +46,7 @@ use std::time::Instant;
 use gaugebook::units::Frequency;
 use gaugebook::{
     Arrangement, ColumnWriter, ExportOptions, FilterBand, LogFormat, LogOptions, RunningLine,
-    RunningSummary, SosFilter, StreamingBank, open_log,
+    RunningSummary, SosFilter, StreamingBank, open_log, rising_crossings_in_blocks,
 };
 use uom::si::frequency::hertz;
 
@@ -107,24 +107,6 @@ struct Timings {
     stats: f64,
     fit: f64,
     write: f64,
-}
-
-/// Rising crossings of `level` over a record held as consecutive blocks:
-/// samples i with `x[i-1] < level <= x[i]`, block boundaries included.
-fn rising_crossings(blocks: &[Arc<Vec<f64>>], level: f64) -> usize {
-    let mut count = 0;
-    let mut prev: Option<f64> = None;
-    for b in blocks {
-        if let (Some(p), Some(&first)) = (prev, b.first()) {
-            count += usize::from(p < level && level <= first);
-        }
-        count += b
-            .windows(2)
-            .filter(|w| w[0] < level && level <= w[1])
-            .count();
-        prev = b.last().copied().or(prev);
-    }
-    count
 }
 
 fn pipeline(args: &[String]) -> Res<()> {
@@ -302,7 +284,7 @@ fn pipeline(args: &[String]) -> Res<()> {
     let (crossings, ss_res) = std::thread::scope(|s| {
         let h = s.spawn(|| {
             let c: Vec<usize> = (2..4)
-                .map(|k| rising_crossings(&kept[k], means[k]))
+                .map(|k| rising_crossings_in_blocks(kept[k].iter().map(|b| b.as_slice()), means[k]))
                 .collect();
             let res: f64 = kept[0]
                 .iter()
@@ -312,7 +294,7 @@ fn pipeline(args: &[String]) -> Res<()> {
             (c, res)
         });
         let mut c: Vec<usize> = (0..2)
-            .map(|k| rising_crossings(&kept[k], means[k]))
+            .map(|k| rising_crossings_in_blocks(kept[k].iter().map(|b| b.as_slice()), means[k]))
             .collect();
         // A counting thread only panics on a bug; pass that panic on.
         let (c2, res) = h.join().unwrap_or_else(|p| std::panic::resume_unwind(p));

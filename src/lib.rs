@@ -29,7 +29,7 @@ pub use signal::{
     RangeBin, RunningLine, RunningSummary, SnCurve, SosFilter, StreamingBank, StreamingFilter,
     Summary, counts_by_range, decimate, decimation_filter, find_holds, find_ramps, miner_damage,
     moving_average, rainflow_cycles, range_histogram, resample_linear, reversals, rising_crossings,
-    summarize, summarize_windows, uniform_times,
+    rising_crossings_in_blocks, summarize, summarize_windows, uniform_times,
 };
 
 pub use display::{MimeBundle, ToMime, html_escape};

@@ -169,20 +169,21 @@ impl Frame {
     /// The column `name` handed over: removed from the frame (so a conversion of it can work in
     /// its buffer), the time column excepted.
     fn remove(&mut self, name: &str) -> ScriptResult<Column> {
-        let c = self.col(name)?;
-        let k = self
+        let found = self
             .columns
             .iter()
             .zip(&self.headers)
-            .position(|((n, _), h)| n == name || h == name)
-            .unwrap_or(0);
+            .position(|((n, _), h)| n == name || h == name);
+        let Some(k) = found else {
+            // Not there: the same error as reading it.
+            return self.col(name);
+        };
         if self.has_time && k == 0 {
             return Err(fault(
                 "ArgumentError",
                 format!("the time column `{name}` stays in the frame; read it with `.time`"),
             ));
         }
-        drop(c);
         self.headers.remove(k);
         Ok(self.columns.remove(k).1)
     }

@@ -470,9 +470,7 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |blocks: Array, level: Quantity| -> ScriptResult<INT> {
-        let mut count = 0usize;
-        let mut prev: Option<f64> = None;
-        let mut l: Option<f64> = None;
+        let mut cols = Vec::with_capacity(blocks.len());
         for (i, v) in blocks.iter().enumerate() {
             let c = v.read_lock::<Column>().ok_or_else(|| {
                 fault(
@@ -483,19 +481,6 @@ pub(crate) fn register(engine: &mut Engine) {
                     ),
                 )
             })?;
-            let l = match l {
-                Some(l) => l,
-                None => {
-                    let unit = c.unit().map(|u| u.symbol().to_string()).unwrap_or_default();
-                    let si = match values(&Dynamic::from(level.clone()), "level", &unit)? {
-                        Values::One(si) => si,
-                        Values::Many(_) => {
-                            return Err(fault("ArgumentError", "level must be a single quantity"));
-                        }
-                    };
-                    *l.insert(si)
-                }
-            };
             if c.dimension() != level.dimension() {
                 return Err(fault(
                     "UnitError",
@@ -506,14 +491,19 @@ pub(crate) fn register(engine: &mut Engine) {
                     ),
                 ));
             }
-            let x = c.data();
-            if let (Some(p), Some(&first)) = (prev, x.first()) {
-                count += usize::from(p < l && l <= first);
-            }
-            count += crate::rising_crossings(x, l);
-            prev = x.last().copied().or(prev);
+            cols.push(c.data().clone());
         }
-        Ok(count as INT)
+        let unit = match blocks.first().and_then(|v| v.read_lock::<Column>().map(|c| c.clone())) {
+            Some(c) => c.unit().map(|u| u.symbol().to_string()).unwrap_or_default(),
+            None => return Ok(0),
+        };
+        let l = match values(&Dynamic::from(level), "level", &unit)? {
+            Values::One(si) => si,
+            Values::Many(_) => {
+                return Err(fault("ArgumentError", "level must be a single quantity"));
+            }
+        };
+        Ok(crate::rising_crossings_in_blocks(cols.iter().map(|c| c.as_slice()), l) as INT)
     });
 
     func(

@@ -35,5 +35,7 @@ pub use rainflow::{Cycle, RangeBin, counts_by_range, rainflow_cycles, range_hist
 pub use resample::{resample_linear, uniform_times};
 pub use response::FrequencyResponse;
 pub use running::{LineFit, RunningLine, RunningSummary};
-pub use stats::{Summary, rising_crossings, summarize, summarize_windows};
+pub use stats::{
+    Summary, rising_crossings, rising_crossings_in_blocks, summarize, summarize_windows,
+};
 pub use stream::{StreamingBank, StreamingFilter};

@@ -136,6 +136,30 @@ pub fn rising_crossings(x: &[f64], level: f64) -> usize {
         .sum()
 }
 
+/// [`rising_crossings`] of a record held as consecutive blocks, counted across the joins too
+/// (the last sample of one block and the first of the next), without joining them.
+///
+/// ```
+/// let blocks: [&[f64]; 2] = [&[0.0, 1.0, 0.0], &[0.5, 2.0]];
+/// assert_eq!(gaugebook::rising_crossings_in_blocks(blocks, 0.5), 2);
+/// assert_eq!(gaugebook::rising_crossings(&[0.0, 1.0, 0.0, 0.5, 2.0], 0.5), 2);
+/// ```
+pub fn rising_crossings_in_blocks<'a>(
+    blocks: impl IntoIterator<Item = &'a [f64]>,
+    level: f64,
+) -> usize {
+    let mut count = 0;
+    let mut prev: Option<f64> = None;
+    for x in blocks {
+        if let (Some(p), Some(&first)) = (prev, x.first()) {
+            count += usize::from(p < level && level <= first);
+        }
+        count += rising_crossings(x, level);
+        prev = x.last().copied().or(prev);
+    }
+    count
+}
+
 /// Sum, sum of squares, minimum and maximum in one pass.
 struct First {
     sum: f64,
