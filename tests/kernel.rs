@@ -14,7 +14,7 @@ use std::sync::atomic::{AtomicBool, Ordering};
 use std::sync::{Arc, Mutex};
 use std::time::Duration;
 
-use crate::common::pyenv::{pyenv, target_dir};
+use crate::common::pyenv::{pip_install_once, pyenv, target_dir};
 use gaugebook::{
     Backend, CellError, CodeStatus, CompletionSet, Interrupter, KernelOutput, KernelspecTarget,
     MimeBundle,
@@ -415,22 +415,7 @@ fn jupyterlab_in_headless_chromium_runs_a_cell() {
     let Some(python) = pyenv() else {
         return;
     };
-    let ready = target_dir().join("pyenv").join(".gaugebook-lab-ready");
-    if !ready.exists() {
-        let st = Command::new(&python)
-            .args([
-                "-m",
-                "pip",
-                "install",
-                "--quiet",
-                "--disable-pip-version-check",
-            ])
-            .args(["jupyterlab", "selenium"])
-            .status()
-            .expect("pip runs");
-        assert!(st.success(), "pip install jupyterlab selenium failed");
-        std::fs::write(&ready, "jupyterlab\nselenium\n").expect("marker file is writable");
-    }
+    pip_install_once(&python, ".gaugebook-lab-ready", &["jupyterlab", "selenium"]);
     let out = target_dir().join("kernel-browser");
     let out = out.to_string_lossy();
     let args = ["--out", &out, "--chromium", chromium, "--driver", driver];

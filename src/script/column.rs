@@ -331,6 +331,23 @@ impl ToMime for Column {
     }
 }
 
+/// The columns of an array argument of `func` (sharing their buffers), or an error naming the
+/// first item that is not one.
+pub(crate) fn array_columns(items: &Array, func: &str) -> ScriptResult<Vec<Column>> {
+    items
+        .iter()
+        .enumerate()
+        .map(|(i, v)| {
+            v.read_lock::<Column>().map(|c| c.clone()).ok_or_else(|| {
+                fault(
+                    "ArgumentError",
+                    format!("item {i} of {func} must be a Column, found {}", type_of(v)),
+                )
+            })
+        })
+        .collect()
+}
+
 /// `f` over the values, writing into the buffer when no one else holds it.
 fn map_owned(mut a: Arc<Vec<f64>>, f: impl Fn(f64) -> f64) -> Arc<Vec<f64>> {
     if let Some(v) = Arc::get_mut(&mut a) {
@@ -831,19 +848,7 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |cols: Array| -> ScriptResult<Column> {
-        let mut parts = Vec::with_capacity(cols.len());
-        for (i, v) in cols.iter().enumerate() {
-            let c = v.read_lock::<Column>().ok_or_else(|| {
-                fault(
-                    "ArgumentError",
-                    format!(
-                        "item {i} of concat() must be a Column, found {}",
-                        type_of(v)
-                    ),
-                )
-            })?;
-            parts.push(c.clone());
-        }
+        let parts = array_columns(&cols, "concat()")?;
         let Some(first) = parts.first() else {
             return Err(fault("ArgumentError", "concat() needs at least one column"));
         };

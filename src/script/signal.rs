@@ -470,17 +470,8 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |blocks: Array, level: Quantity| -> ScriptResult<INT> {
-        let mut cols = Vec::with_capacity(blocks.len());
-        for (i, v) in blocks.iter().enumerate() {
-            let c = v.read_lock::<Column>().ok_or_else(|| {
-                fault(
-                    "ArgumentError",
-                    format!(
-                        "item {i} of the blocks of rising_crossings() must be a Column, found {}",
-                        super::bind::type_of(v)
-                    ),
-                )
-            })?;
+        let cols = super::column::array_columns(&blocks, "the blocks of rising_crossings()")?;
+        for (i, c) in cols.iter().enumerate() {
             if c.dimension() != level.dimension() {
                 return Err(fault(
                     "UnitError",
@@ -491,9 +482,8 @@ pub(crate) fn register(engine: &mut Engine) {
                     ),
                 ));
             }
-            cols.push(c.data().clone());
         }
-        let unit = match blocks.first().and_then(|v| v.read_lock::<Column>().map(|c| c.clone())) {
+        let unit = match cols.first() {
             Some(c) => c.unit().map(|u| u.symbol().to_string()).unwrap_or_default(),
             None => return Ok(0),
         };
@@ -503,7 +493,7 @@ pub(crate) fn register(engine: &mut Engine) {
                 return Err(fault("ArgumentError", "level must be a single quantity"));
             }
         };
-        Ok(crate::rising_crossings_in_blocks(cols.iter().map(|c| c.as_slice()), l) as INT)
+        Ok(crate::rising_crossings_in_blocks(cols.iter().map(|c| c.data().as_slice()), l) as INT)
     });
 
     func(

@@ -58,8 +58,7 @@ pub fn pyenv() -> Option<PathBuf> {
         } else {
             dir.join("bin").join("python")
         };
-        let ready = dir.join(".gaugebook-ready");
-        if !ready.exists() {
+        if !dir.join(".gaugebook-ready").exists() {
             if !bin.exists() {
                 let st = Command::new(&python)
                     .args(["-m", "venv"])
@@ -68,21 +67,31 @@ pub fn pyenv() -> Option<PathBuf> {
                     .expect("python -m venv runs");
                 assert!(st.success(), "python -m venv {} failed", dir.display());
             }
-            let st = Command::new(&bin)
-                .args([
-                    "-m",
-                    "pip",
-                    "install",
-                    "--quiet",
-                    "--disable-pip-version-check",
-                ])
-                .args(PY_PACKAGES)
-                .status()
-                .expect("pip runs");
-            assert!(st.success(), "pip install {PY_PACKAGES:?} failed");
-            std::fs::write(&ready, PY_PACKAGES.join("\n")).expect("marker file is writable");
+            pip_install_once(&bin, ".gaugebook-ready", PY_PACKAGES);
         }
         Some(bin)
     })
     .clone()
+}
+
+/// Installs `packages` from PyPI into the venv of `python`, once: a marker file `marker` in the
+/// venv folder records that it was done.
+pub fn pip_install_once(python: &Path, marker: &str, packages: &[&str]) {
+    let ready = target_dir().join("pyenv").join(marker);
+    if ready.exists() {
+        return;
+    }
+    let st = Command::new(python)
+        .args([
+            "-m",
+            "pip",
+            "install",
+            "--quiet",
+            "--disable-pip-version-check",
+        ])
+        .args(packages)
+        .status()
+        .expect("pip runs");
+    assert!(st.success(), "pip install {packages:?} failed");
+    std::fs::write(&ready, packages.join("\n")).expect("marker file is writable");
 }
