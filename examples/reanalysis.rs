@@ -50,6 +50,11 @@ use gaugebook::{
 };
 use uom::si::frequency::hertz;
 
+/// The binary's allocator, so the benchmark runs as `gaugebook run` does (see `mimalloc` in
+/// Cargo.toml).
+#[global_allocator]
+static ALLOCATOR: mimalloc::MiMalloc = mimalloc::MiMalloc;
+
 type Res<T> = Result<T, Box<dyn std::error::Error>>;
 
 const CHANNELS: [&str; 4] = ["sg1", "sg2", "sg3", "sg4"];

@@ -25,11 +25,12 @@ pub mod units;
 // Signal processing, statistics and fatigue counting (issue 6).
 mod signal;
 pub use signal::{
-    Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, LineFit, MAX_FILTER_ORDER, Ramp,
-    RangeBin, RunningLine, RunningSummary, SnCurve, SosFilter, StreamingBank, StreamingFilter,
-    Summary, counts_by_range, decimate, decimation_filter, find_holds, find_ramps, miner_damage,
-    moving_average, rainflow_cycles, range_histogram, resample_linear, reversals, rising_crossings,
-    rising_crossings_in_blocks, summarize, summarize_windows, uniform_times,
+    Cycle, FilterBand, FrequencyResponse, Hold, HoldCriteria, LineFit, MAX_FILTER_ORDER,
+    RainflowCounter, Ramp, RangeBin, RunningLine, RunningSummary, SnCurve, SosFilter,
+    StreamingBank, StreamingFilter, Summary, counts_by_range, decimate, decimation_filter,
+    find_holds, find_ramps, miner_damage, moving_average, rainflow_cycles, range_histogram,
+    resample_linear, reversals, rising_crossings, rising_crossings_in_blocks, summarize,
+    summarize_windows, uniform_times,
 };
 
 pub use display::{MimeBundle, ToMime, html_escape};

@@ -243,6 +243,26 @@ fn rainflow_cycles_equal_the_rainflow_package() {
 }
 
 #[test]
+fn rainflow_counted_in_blocks_equals_the_rainflow_package() {
+    // The same reference as above (rainflow 3.2.0, extract_cycles), the history fed to the
+    // counter in blocks of every size from 1 to 41 samples, empty blocks in between.
+    let h = r::lcg_history(1, 40, 10);
+    for size in 1..=41 {
+        let mut counter = RainflowCounter::new();
+        for block in h.chunks(size) {
+            counter.add(block).unwrap();
+            counter.add(&[]).unwrap();
+        }
+        let got: Vec<(f64, f64, f64, usize, usize)> = counter
+            .finish()
+            .iter()
+            .map(|c| (c.range, c.mean, c.count, c.start, c.end))
+            .collect();
+        assert_eq!(got, r::RAINFLOW_CYCLES_1_40_10.to_vec(), "blocks of {size}");
+    }
+}
+
+#[test]
 fn rainflow_summaries_and_histograms_equal_the_rainflow_package() {
     // rainflow.count_cycles(h) and count_cycles(h, binsize=250.0), rainflow 3.2.0, eight random
     // histories of 2000 integer samples: integers keep both sides exact.
@@ -317,6 +337,24 @@ mod properties {
             let r = reversals(&x).len();
             let total: f64 = rainflow_cycles(&x).unwrap().iter().map(|c| c.count).sum();
             prop_assert_eq!(total, r.saturating_sub(1) as f64 / 2.0);
+        }
+
+        #[test]
+        fn rainflow_in_blocks_is_rainflow_of_the_whole(
+            x in proptest::collection::vec(-1e3f64..1e3, 0..300),
+            cuts in proptest::collection::vec(0usize..300, 0..6),
+        ) {
+            // Cutting a history anywhere changes nothing: the counter carries the reversal
+            // search and the stack across blocks.
+            let mut cuts: Vec<usize> = cuts.into_iter().map(|c| c.min(x.len())).collect();
+            cuts.sort_unstable();
+            let mut counter = RainflowCounter::new();
+            let mut from = 0;
+            for c in cuts.into_iter().chain([x.len()]) {
+                counter.add(&x[from..c]).unwrap();
+                from = c;
+            }
+            prop_assert_eq!(counter.finish(), rainflow_cycles(&x).unwrap());
         }
 
         #[test]

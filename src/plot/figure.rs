@@ -4,7 +4,7 @@
 //! millions of samples stays small and quick to draw.
 
 use super::error::PlotError;
-use super::thin::thin;
+use super::thin::thin_blocks;
 
 /// Columns of the grid long line series are thinned to when added: finer than any figure is
 /// drawn (so the pixel-column thinning at drawing time still sees every extreme).
@@ -121,13 +121,55 @@ impl Panel {
     /// assert!(p.clone().line("a", &[0.0, 1.0], &[2.0]).is_err());
     /// assert!(p.line("a", &[0.0, 1.0], &[2.0, f64::NAN]).is_err());
     /// ```
-    pub fn line(mut self, name: &str, x: &[f64], y: &[f64]) -> Result<Panel, PlotError> {
-        check_xy(name, x, y)?;
-        let sorted = x.windows(2).all(|w| w[0] <= w[1]);
+    pub fn line(self, name: &str, x: &[f64], y: &[f64]) -> Result<Panel, PlotError> {
+        self.line_blocks(name, &[(x, y)])
+    }
+
+    /// Adds a line through a series held as consecutive blocks (x, y), as [`Panel::line`] adds
+    /// one through the joined series, without joining a long one: a time series is thinned
+    /// block by block. Errors as for [`Panel::line`], naming the block.
+    ///
+    /// ```
+    /// use gaugebook::{Axis, Panel};
+    /// let t: Vec<f64> = (0..100_000).map(|k| k as f64 * 1e-3).collect();
+    /// let f: Vec<f64> = t.iter().map(|t| (40.0 * t).sin()).collect();
+    /// let blocks: Vec<(&[f64], &[f64])> = t.chunks(30_000).zip(f.chunks(30_000)).collect();
+    /// let p = Panel::new(Axis::new("time", "s"), Axis::new("load", "kN"));
+    /// assert_eq!(p.clone().line_blocks("F", &blocks)?.series_count(), 1);
+    /// assert!(p.line_blocks("F", &[(&t[..3], &f[..2])]).is_err());
+    /// # Ok::<(), gaugebook::PlotError>(())
+    /// ```
+    pub fn line_blocks(
+        mut self,
+        name: &str,
+        blocks: &[(&[f64], &[f64])],
+    ) -> Result<Panel, PlotError> {
+        if blocks.iter().all(|b| b.0.is_empty() && b.1.is_empty()) {
+            return Err(PlotError::Empty {
+                what: format!("series {name}"),
+            });
+        }
+        let mut prev: Option<f64> = None;
+        let mut sorted = true;
+        for (i, (x, y)) in blocks.iter().enumerate() {
+            if x.is_empty() && y.is_empty() {
+                continue;
+            }
+            if blocks.len() == 1 {
+                check_xy(name, x, y)?;
+            } else {
+                check_xy(&format!("{name} (block {i})"), x, y)?;
+            }
+            sorted &= prev.is_none_or(|p| p <= x[0]) && x.windows(2).all(|w| w[0] <= w[1]);
+            prev = x.last().copied();
+        }
         let (x, y) = if sorted {
-            thin(x, y, STORE_COLUMNS)
+            thin_blocks(blocks, STORE_COLUMNS)
         } else {
-            (x.to_vec(), y.to_vec())
+            (
+                blocks.iter().flat_map(|b| b.0.iter().copied()).collect(),
+                blocks.iter().flat_map(|b| b.1.iter().copied()).collect(),
+            )
         };
         self.series.push(Series {
             name: name.to_string(),

@@ -597,6 +597,44 @@ pub(crate) fn register(engine: &mut Engine) {
     });
 
     func(
+        "rainflow",
+        &["blocks: Array"],
+        "Cycles",
+        r#"
+        Rainflow cycles (as above) of a record held as consecutive blocks (an array of columns of
+        one dimension), counted block by block without joining them; `start` counts samples from
+        the first block's first. The same cycles as of the joined record.
+        ```rhai
+        let whole = rainflow(column([-2.0, 1.0, -3.0, 5.0, -1.0, 3.0, -4.0, 4.0, -2.0], "MPa"));
+        let parts = rainflow([column([-2.0, 1.0, -3.0, 5.0], "MPa"), column([-1.0, 3.0, -4.0, 4.0, -2.0], "MPa")]);
+        assert_eq(parts.cycles, whole.cycles);
+        assert_eq(parts.start.values(""), whole.start.values(""));
+        ```
+    "#,
+    )
+    .register_into_engine(engine, |blocks: Array| -> ScriptResult<Cycles> {
+        let cols = super::column::array_columns(&blocks, "the blocks of rainflow()")?;
+        let Some(first) = cols.first() else {
+            return Err(fault("ArgumentError", "rainflow() needs at least one block"));
+        };
+        let mut counter = crate::RainflowCounter::new();
+        for (i, c) in cols.iter().enumerate() {
+            if c.dimension() != first.dimension() {
+                return Err(fault(
+                    "UnitError",
+                    format!(
+                        "item {i} of the blocks of rainflow() is a column of {}, item 0 one of {}",
+                        c.dimension(),
+                        first.dimension()
+                    ),
+                ));
+            }
+            counter.add(c.data())?;
+        }
+        cycles_of(first, counter.finish())
+    });
+
+    func(
         "range_histogram",
         &["cycles: Cycles", "width: Quantity"],
         "Record",
@@ -719,6 +757,36 @@ mod plot {
         Ok(o.opt_string(k)?.unwrap_or_else(|| default.to_string()))
     }
 
+    /// The figure of one panel with the `title` and `size` options.
+    fn figure(o: &Options, panel: Panel) -> ScriptResult<Plot> {
+        let mut fig = Plot::new(text_opt(o, "title", "")?).with_panel(panel);
+        if let Some(v) = o.raw("size") {
+            let a = v
+                .read_lock::<Array>()
+                .map(|a| a.clone())
+                .unwrap_or_default();
+            let w = a.first().and_then(|v| v.as_int().ok());
+            let h = a.get(1).and_then(|v| v.as_int().ok());
+            match (w, h) {
+                (Some(w), Some(h)) if a.len() == 2 => {
+                    fig = fig
+                        .with_size(
+                            w.clamp(0, u32::MAX as INT) as u32,
+                            h.clamp(0, u32::MAX as INT) as u32,
+                        )
+                        .map_err(|e| fault("PlotError", e.to_string()))?;
+                }
+                _ => {
+                    return Err(fault(
+                        "ArgumentError",
+                        "key `size` in options of plot() must be [width, height] in pixels",
+                    ));
+                }
+            }
+        }
+        Ok(fig)
+    }
+
     pub(super) fn register(engine: &mut Engine) {
         super::super::bind::register_display::<Plot>(engine, "Plot");
 
@@ -765,22 +833,89 @@ mod plot {
                 let name = names.get(k).cloned().unwrap_or_else(|| format!("y{}", k + 1));
                 panel = panel.line(&name, &xv, &shown(c)?).map_err(|e| fault("PlotError", e.to_string()))?;
             }
-            let mut fig = Plot::new(text_opt(&o, "title", "")?).with_panel(panel);
-            if let Some(v) = o.raw("size") {
-                let a = v.read_lock::<Array>().map(|a| a.clone()).unwrap_or_default();
-                let w = a.first().and_then(|v| v.as_int().ok());
-                let h = a.get(1).and_then(|v| v.as_int().ok());
-                match (w, h) {
-                    (Some(w), Some(h)) if a.len() == 2 => {
-                        fig = fig
-                            .with_size(w.clamp(0, u32::MAX as INT) as u32, h.clamp(0, u32::MAX as INT) as u32)
-                            .map_err(|e| fault("PlotError", e.to_string()))?;
-                    }
-                    _ => return Err(fault("ArgumentError", "key `size` in options of plot() must be [width, height] in pixels")),
-                }
-            }
-            Ok(fig)
+            figure(&o, panel)
         });
+
+        func(
+            "plot",
+            &["x: Array", "y: Array", "options: Map"],
+            "Plot",
+            r#"
+            A line figure of one record held as consecutive blocks: `y`'s blocks against `x`'s (two
+            arrays of columns, block for block of one length), thinned block by block without
+            joining them. Options as above (`names` takes the one name).
+            ```rhai
+            let t = [column([0.0, 0.5], "s"), column([1.0, 1.5], "s")];
+            let f = [column([0.0, 1.0], "kN"), column([2.0, 1.0], "kN")];
+            let p = plot(t, f, #{ title: "load", y_name: "load" });
+            assert(p.to_svg().contains("load (kN)"));
+            ```
+        "#,
+        )
+        .register_into_engine(
+            engine,
+            |x: Array, y: Array, opts: Map| -> ScriptResult<Plot> {
+                let o = Options::new(
+                    &opts,
+                    "plot()",
+                    &["title", "x_name", "y_name", "names", "size"],
+                )?;
+                let xs = super::super::column::array_columns(&x, "the x blocks of plot()")?;
+                let ys = super::super::column::array_columns(&y, "the y blocks of plot()")?;
+                if xs.len() != ys.len() {
+                    return Err(fault(
+                        "ArgumentError",
+                        format!("plot() has {} x blocks but {} y blocks", xs.len(), ys.len()),
+                    ));
+                }
+                let (Some(x0), Some(y0)) = (xs.first(), ys.first()) else {
+                    return Err(fault(
+                        "ArgumentError",
+                        "plot() needs at least one block to draw",
+                    ));
+                };
+                for (i, (a, b)) in xs.iter().zip(&ys).enumerate() {
+                    if a.dimension() != x0.dimension() || b.dimension() != y0.dimension() {
+                        return Err(fault(
+                            "UnitError",
+                            format!(
+                                "block {i} of plot() is of {} against {}, block 0 of {} against {}",
+                                b.dimension(),
+                                a.dimension(),
+                                y0.dimension(),
+                                x0.dimension()
+                            ),
+                        ));
+                    }
+                }
+                let xv = xs.iter().map(shown).collect::<ScriptResult<Vec<_>>>()?;
+                let yv = ys.iter().map(shown).collect::<ScriptResult<Vec<_>>>()?;
+                let blocks: Vec<(&[f64], &[f64])> = xv
+                    .iter()
+                    .zip(&yv)
+                    .map(|(a, b)| (a.as_ref(), b.as_ref()))
+                    .collect();
+                let name = match o.raw("names") {
+                    Some(v) => v
+                        .read_lock::<Array>()
+                        .and_then(|a| a.first().map(|s| s.to_string()))
+                        .ok_or_else(|| {
+                            fault(
+                                "ArgumentError",
+                                "key `names` in options of plot() must be an array of strings",
+                            )
+                        })?,
+                    None => "y1".to_string(),
+                };
+                let panel = Panel::new(
+                    axis_of(x0, &text_opt(&o, "x_name", "x")?),
+                    axis_of(y0, &text_opt(&o, "y_name", "y")?),
+                )
+                .line_blocks(&name, &blocks)
+                .map_err(|e| fault("PlotError", e.to_string()))?;
+                figure(&o, panel)
+            },
+        );
 
         func(
             "histogram",

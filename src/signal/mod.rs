@@ -31,7 +31,9 @@ pub use events::{Hold, HoldCriteria, Ramp, find_holds, find_ramps};
 pub use fatigue::{SnCurve, miner_damage};
 pub use filter::{MAX_FILTER_ORDER, SosFilter};
 pub use moving_average::moving_average;
-pub use rainflow::{Cycle, RangeBin, counts_by_range, rainflow_cycles, range_histogram, reversals};
+pub use rainflow::{
+    Cycle, RainflowCounter, RangeBin, counts_by_range, rainflow_cycles, range_histogram, reversals,
+};
 pub use resample::{resample_linear, uniform_times};
 pub use response::FrequencyResponse;
 pub use running::{LineFit, RunningLine, RunningSummary};

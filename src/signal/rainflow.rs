@@ -42,27 +42,63 @@ pub struct Cycle {
 /// ```
 pub fn reversals(x: &[f64]) -> Vec<(usize, f64)> {
     let mut out = Vec::new();
-    if x.len() < 2 {
-        return out;
-    }
-    out.push((0, x[0]));
-    let mut cur = x[1];
-    let mut d_last = x[1] - x[0];
-    for (k, &next) in x.iter().enumerate().skip(2) {
-        if next == cur {
-            continue;
-        }
-        let d_next = next - cur;
-        if d_last * d_next < 0.0 {
-            out.push((k - 1, cur));
-        }
-        cur = next;
-        d_last = d_next;
-    }
-    if x.len() > 2 {
-        out.push((x.len() - 1, x[x.len() - 1]));
-    }
+    let mut finder = ReversalFinder::default();
+    finder.add(x, |p| out.push(p));
+    finder.finish(|p| out.push(p));
     out
+}
+
+/// Finds reversals sample by sample, so a history can arrive in blocks: the first sample, then
+/// each sample before a change of slope sign (equal samples are one point), and at the end the
+/// last sample when there were more than two (rainflow 3.2.0's rule, see [`reversals`]).
+#[derive(Clone, Debug, Default)]
+struct ReversalFinder {
+    /// Samples seen so far.
+    seen: usize,
+    /// The first sample.
+    first: f64,
+    /// The latest value that differed from the one before it.
+    cur: f64,
+    /// The slope into `cur`.
+    d_last: f64,
+    /// The latest sample.
+    last: f64,
+}
+
+impl ReversalFinder {
+    #[inline]
+    fn add(&mut self, x: &[f64], mut emit: impl FnMut((usize, f64))) {
+        for &next in x {
+            let k = self.seen;
+            self.seen += 1;
+            self.last = next;
+            match k {
+                0 => {
+                    self.first = next;
+                    emit((0, next));
+                }
+                1 => {
+                    self.cur = next;
+                    self.d_last = next - self.first;
+                }
+                _ if next == self.cur => {}
+                _ => {
+                    let d_next = next - self.cur;
+                    if self.d_last * d_next < 0.0 {
+                        emit((k - 1, self.cur));
+                    }
+                    self.cur = next;
+                    self.d_last = d_next;
+                }
+            }
+        }
+    }
+
+    fn finish(&self, mut emit: impl FnMut((usize, f64))) {
+        if self.seen > 2 {
+            emit((self.seen - 1, self.last));
+        }
+    }
 }
 
 /// Rainflow cycles of a history per ASTM E1049-85 (2017) §5.4.4, in the order counted.
@@ -77,49 +113,151 @@ pub fn reversals(x: &[f64]) -> Vec<(usize, f64)> {
 /// # Ok::<(), gaugebook::PhysicsError>(())
 /// ```
 pub fn rainflow_cycles(x: &[f64]) -> Result<Vec<Cycle>, PhysicsError> {
-    if let Some(i) = x.iter().position(|v| !v.is_finite()) {
-        return Err(PhysicsError::invalid(
-            format!("sample {i} of the load history"),
-            x[i],
-            "a finite value",
-        ));
-    }
-    let cycle = |a: (usize, f64), b: (usize, f64), count: f64| Cycle {
+    let mut counter = RainflowCounter::new();
+    counter.add(x)?;
+    Ok(counter.finish())
+}
+
+/// Rainflow counting (ASTM E1049-85 (2017) §5.4.4, as [`rainflow_cycles`]) of a history that
+/// arrives in blocks: a long log's load counted block by block without joining it. The cycles
+/// and their sample indices (counted from the first block's first sample) are those of
+/// [`rainflow_cycles`] over the joined history.
+///
+/// ```
+/// use gaugebook::{RainflowCounter, rainflow_cycles};
+/// let x = [-2.0, 1.0, -3.0, 5.0, -1.0, 3.0, -4.0, 4.0, -2.0];
+/// let mut counter = RainflowCounter::new();
+/// for block in x.chunks(2) {
+///     counter.add(block)?;
+/// }
+/// assert_eq!(counter.samples(), 9);
+/// assert_eq!(counter.finish(), rainflow_cycles(&x)?);
+/// # Ok::<(), gaugebook::PhysicsError>(())
+/// ```
+#[derive(Clone, Debug, Default)]
+pub struct RainflowCounter {
+    reversals: ReversalFinder,
+    /// The stack of reversals not yet discarded; `points[head]` is the starting point S.
+    points: Vec<(usize, f64)>,
+    /// Index of S in `points` (dropping the first point is O(1)).
+    head: usize,
+    cycles: Vec<Cycle>,
+}
+
+fn cycle(a: (usize, f64), b: (usize, f64), count: f64) -> Cycle {
+    Cycle {
         range: (a.1 - b.1).abs(),
         mean: 0.5 * (a.1 + b.1),
         count,
         start: a.0,
         end: b.0,
-    };
-    let mut out = Vec::new();
-    // The stack of points not yet discarded; points[0] is the current starting point S.
-    let mut points: Vec<(usize, f64)> = Vec::new();
-    let mut head = 0; // index of S in `points` (dropping the first point is O(1))
-    for p in reversals(x) {
-        points.push(p);
-        while points.len() - head >= 3 {
-            let n = points.len();
-            let (x1, x2, x3) = (points[n - 3].1, points[n - 2].1, points[n - 1].1);
-            let range_x = (x3 - x2).abs();
-            let range_y = (x2 - x1).abs();
-            if range_x < range_y {
-                break;
-            } else if n - head == 3 {
-                // Y contains the starting point: a half cycle; S moves to Y's second point.
-                out.push(cycle(points[head], points[head + 1], 0.5));
-                head += 1;
-            } else {
-                out.push(cycle(points[n - 3], points[n - 2], 1.0));
-                let last = points[n - 1];
-                points.truncate(n - 3);
-                points.push(last);
-            }
+    }
+}
+
+impl RainflowCounter {
+    /// A counter that has seen no samples.
+    ///
+    /// ```
+    /// assert!(gaugebook::RainflowCounter::new().finish().is_empty());
+    /// ```
+    pub fn new() -> RainflowCounter {
+        RainflowCounter::default()
+    }
+
+    /// Counts the next block of the history. Errors: a NaN or infinite sample, named by its
+    /// index in the whole history; the block is then not counted.
+    ///
+    /// ```
+    /// let mut c = gaugebook::RainflowCounter::new();
+    /// c.add(&[0.0, 1.0])?;
+    /// let e = c.add(&[2.0, f64::NAN]).unwrap_err();
+    /// assert!(e.to_string().contains("sample 3"));
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn add(&mut self, x: &[f64]) -> Result<(), PhysicsError> {
+        if let Some(i) = x.iter().position(|v| !v.is_finite()) {
+            return Err(PhysicsError::invalid(
+                format!("sample {} of the load history", self.reversals.seen + i),
+                x[i],
+                "a finite value",
+            ));
+        }
+        let RainflowCounter {
+            reversals,
+            points,
+            head,
+            cycles,
+        } = self;
+        reversals.add(x, |p| count_point(points, head, cycles, p));
+        Ok(())
+    }
+
+    /// Samples counted so far.
+    ///
+    /// ```
+    /// let mut c = gaugebook::RainflowCounter::new();
+    /// c.add(&[0.0, 1.0, 0.5])?;
+    /// assert_eq!(c.samples(), 3);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn samples(&self) -> usize {
+        self.reversals.seen
+    }
+
+    /// Ends the history: the last sample is a reversal, and every range left is a half cycle.
+    /// Returns the cycles in the order counted.
+    ///
+    /// ```
+    /// let mut c = gaugebook::RainflowCounter::new();
+    /// c.add(&[0.0, 4.0, 1.0, 3.0, 0.0])?;
+    /// assert_eq!(c.finish().len(), 3);
+    /// # Ok::<(), gaugebook::PhysicsError>(())
+    /// ```
+    pub fn finish(self) -> Vec<Cycle> {
+        let RainflowCounter {
+            reversals,
+            mut points,
+            mut head,
+            mut cycles,
+        } = self;
+        reversals.finish(|p| count_point(&mut points, &mut head, &mut cycles, p));
+        for k in head..points.len().saturating_sub(1) {
+            cycles.push(cycle(points[k], points[k + 1], 0.5));
+        }
+        cycles
+    }
+}
+
+/// One reversal into the three-point method (§5.4.4 steps 1–6): with X the most recent range
+/// and Y the one before it, read points until X ≥ Y; if Y contains the starting point, count Y
+/// as a half cycle and drop its first point; otherwise count Y as one cycle and drop both its
+/// points.
+#[inline]
+fn count_point(
+    points: &mut Vec<(usize, f64)>,
+    head: &mut usize,
+    out: &mut Vec<Cycle>,
+    p: (usize, f64),
+) {
+    points.push(p);
+    while points.len() - *head >= 3 {
+        let n = points.len();
+        let (x1, x2, x3) = (points[n - 3].1, points[n - 2].1, points[n - 1].1);
+        let range_x = (x3 - x2).abs();
+        let range_y = (x2 - x1).abs();
+        if range_x < range_y {
+            break;
+        } else if n - *head == 3 {
+            // Y contains the starting point: a half cycle; S moves to Y's second point.
+            out.push(cycle(points[*head], points[*head + 1], 0.5));
+            *head += 1;
+        } else {
+            out.push(cycle(points[n - 3], points[n - 2], 1.0));
+            let last = points[n - 1];
+            points.truncate(n - 3);
+            points.push(last);
         }
     }
-    for k in head..points.len().saturating_sub(1) {
-        out.push(cycle(points[k], points[k + 1], 0.5));
-    }
-    Ok(out)
 }
 
 /// Total counts per distinct range, sorted by range (rainflow 3.2.0's `count_cycles` without
