@@ -170,8 +170,7 @@ fn pipeline(args: &[String]) -> Res<()> {
     // The error is boxed only to keep clippy's large-variant lint quiet on this thread's result.
     let writer_thread = std::thread::spawn(move || -> Result<u64, Box<gaugebook::DataError>> {
         for block in wrx {
-            let parts: Vec<&[f64]> = block.iter().map(|v| v.as_slice()).collect();
-            writer.append(&parts).map_err(Box::new)?;
+            writer.append_shared(&block).map_err(Box::new)?;
         }
         writer.finish().map_err(Box::new)
     });

@@ -5,10 +5,12 @@
 use std::fs::File;
 use std::io::{BufWriter, Write};
 use std::path::{Path, PathBuf};
+use std::sync::Arc;
 use std::sync::atomic::{AtomicU64, Ordering};
 
 use polars::prelude::*;
 
+use super::parquet_sink::ParquetSink;
 use super::{DataError, Log, LogFormat};
 
 /// How to write.
@@ -133,7 +135,7 @@ fn start_writeback(file: &File, from: u64, to: u64) {
 
 enum Sink {
     Csv(BufWriter<File>),
-    Parquet(Box<polars::io::parquet::write::BatchedWriter<BufWriter<File>>>),
+    Parquet(Box<ParquetSink>),
 }
 
 impl std::fmt::Debug for ColumnWriter {
@@ -199,16 +201,7 @@ impl ColumnWriter {
                 Sink::Csv(out)
             }
             LogFormat::Parquet => {
-                let schema = Schema::from_iter(
-                    names
-                        .iter()
-                        .map(|n| Field::new(PlSmallStr::from(*n), DataType::Float64)),
-                );
-                // Snappy: what pyarrow writes by default, readable everywhere, cheap on CPU.
-                let w = ParquetWriter::new(out)
-                    .with_compression(ParquetCompression::Snappy)
-                    .batched(&schema)
-                    .map_err(|e| engine(path, e))?;
+                let w = ParquetSink::create(out, names).map_err(|e| engine(path, e))?;
                 Sink::Parquet(Box::new(w))
             }
         };
@@ -234,48 +227,84 @@ impl ColumnWriter {
     /// # Ok::<(), Box<dyn std::error::Error>>(())
     /// ```
     pub fn append(&mut self, columns: &[&[f64]]) -> Result<(), DataError> {
-        if columns.len() != self.names.len() {
+        let rows = self.check_block(columns.iter().map(|c| c.len()))?;
+        match &mut self.sink {
+            Sink::Csv(out) => write_csv_rows(out, columns, self.decimals)
+                .map_err(|e| DataError::io(&self.path, "cannot write", e))?,
+            Sink::Parquet(w) => {
+                let owned: Vec<Arc<Vec<f64>>> =
+                    columns.iter().map(|c| Arc::new(c.to_vec())).collect();
+                w.write(rows, &owned).map_err(|e| engine(&self.path, e))?
+            }
+        }
+        self.after_block();
+        Ok(())
+    }
+
+    /// Appends one block of shared buffers, as [`ColumnWriter::append`] appends slices; the
+    /// Parquet encoder reads them where they are instead of copying them first.
+    ///
+    /// ```
+    /// use std::sync::Arc;
+    /// use gaugebook::{ColumnWriter, ExportOptions, LogOptions, read_log};
+    /// let dir = tempfile::tempdir()?;
+    /// let out = dir.path().join("o.parquet");
+    /// let mut w = ColumnWriter::create(&out, &["t", "x"], &ExportOptions::default())?;
+    /// w.append_shared(&[Arc::new(vec![0.0, 0.5]), Arc::new(vec![2.0, 3.0])])?;
+    /// assert!(w.append_shared(&[Arc::new(vec![1.0]), Arc::new(vec![])]).is_err()); // ragged
+    /// w.finish()?;
+    /// assert_eq!(read_log(&out, &LogOptions::new().time("t"))?.channel("x").unwrap().values, [2.0, 3.0]);
+    /// # Ok::<(), Box<dyn std::error::Error>>(())
+    /// ```
+    pub fn append_shared(&mut self, columns: &[Arc<Vec<f64>>]) -> Result<(), DataError> {
+        let rows = self.check_block(columns.iter().map(|c| c.len()))?;
+        match &mut self.sink {
+            Sink::Csv(out) => {
+                let parts: Vec<&[f64]> = columns.iter().map(|c| c.as_slice()).collect();
+                write_csv_rows(out, &parts, self.decimals)
+                    .map_err(|e| DataError::io(&self.path, "cannot write", e))?
+            }
+            Sink::Parquet(w) => w.write(rows, columns).map_err(|e| engine(&self.path, e))?,
+        }
+        self.after_block();
+        Ok(())
+    }
+
+    /// The block's row count, or an error when it has the wrong number of columns or ragged ones.
+    fn check_block(
+        &self,
+        lengths: impl ExactSizeIterator<Item = usize>,
+    ) -> Result<usize, DataError> {
+        if lengths.len() != self.names.len() {
             return Err(DataError::LengthMismatch {
                 what: "columns given and columns of the writer".into(),
-                left: columns.len(),
+                left: lengths.len(),
                 right: self.names.len(),
             });
         }
-        let rows = columns.first().map_or(0, |c| c.len());
-        if let Some((k, c)) = columns.iter().enumerate().find(|(_, c)| c.len() != rows) {
-            return Err(DataError::LengthMismatch {
-                what: format!("column `{}` and column `{}`", self.names[0], self.names[k]),
-                left: rows,
-                right: c.len(),
-            });
+        let mut rows = None;
+        for (k, n) in lengths.enumerate() {
+            match rows {
+                None => rows = Some(n),
+                Some(r) if r != n => {
+                    return Err(DataError::LengthMismatch {
+                        what: format!("column `{}` and column `{}`", self.names[0], self.names[k]),
+                        left: r,
+                        right: n,
+                    });
+                }
+                Some(_) => {}
+            }
         }
-        self.write_rows(columns, rows)?;
+        Ok(rows.unwrap_or(0))
+    }
+
+    /// Hands what the block added to the kernel's writeback every [`WRITEBACK_EVERY`] bytes.
+    fn after_block(&mut self) {
         let written = self.handle.metadata().map_or(0, |m| m.len());
         if written >= self.writeback_mark + WRITEBACK_EVERY {
             start_writeback(&self.handle, self.writeback_mark, written);
             self.writeback_mark = written;
-        }
-        Ok(())
-    }
-
-    fn write_rows(&mut self, columns: &[&[f64]], rows: usize) -> Result<(), DataError> {
-        match &mut self.sink {
-            Sink::Csv(out) => write_csv_rows(out, columns, self.decimals)
-                .map_err(|e| DataError::io(&self.path, "cannot write", e)),
-            Sink::Parquet(w) => {
-                let cols: Vec<Column> = self
-                    .names
-                    .iter()
-                    .zip(columns)
-                    .map(|(n, v)| {
-                        Float64Chunked::from_slice(PlSmallStr::from(n.as_str()), v)
-                            .into_series()
-                            .into()
-                    })
-                    .collect();
-                let df = DataFrame::new(rows, cols).map_err(|e| engine(&self.path, e))?;
-                w.write_batch(&df).map_err(|e| engine(&self.path, e))
-            }
         }
     }
 

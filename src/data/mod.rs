@@ -16,6 +16,7 @@ mod fixed;
 mod header;
 mod log;
 mod options;
+mod parquet_sink;
 mod plan;
 mod progress;
 mod stream;

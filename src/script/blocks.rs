@@ -199,29 +199,21 @@ fn write_blocks(
     rx: std::sync::mpsc::Receiver<Message>,
     path: PathBuf,
 ) -> Result<u64, Box<DataError>> {
-    let mut buffers: Vec<Vec<f64>> = Vec::new();
     for message in rx {
         match message {
             Message::Block(cols) => {
-                buffers.resize_with(cols.len(), Vec::new);
-                for ((data, unit), buf) in cols.iter().zip(buffers.iter_mut()) {
-                    buf.clear();
-                    if let Some(u) = unit
-                        .as_ref()
-                        .filter(|u| u.factor() != 1.0 || u.offset() != 0.0)
-                    {
-                        buf.extend(data.iter().map(|&si| u.from_si(si)));
-                    }
-                }
-                let parts: Vec<&[f64]> = cols
-                    .iter()
-                    .zip(&buffers)
-                    .map(|((data, unit), buf)| match unit {
-                        Some(u) if u.factor() != 1.0 || u.offset() != 0.0 => buf.as_slice(),
-                        _ => data.as_slice(),
+                // Columns shown in their SI unit go as they are; others are converted into a
+                // buffer of their own, which the Parquet encoder then reads without a copy.
+                let parts: Vec<Arc<Vec<f64>>> = cols
+                    .into_iter()
+                    .map(|(data, unit)| match unit {
+                        Some(u) if u.factor() != 1.0 || u.offset() != 0.0 => {
+                            Arc::new(data.iter().map(|&si| u.from_si(si)).collect())
+                        }
+                        _ => data,
                     })
                     .collect();
-                w.append(&parts)?;
+                w.append_shared(&parts)?;
             }
             Message::Finish => return Ok(w.finish()?),
         }
