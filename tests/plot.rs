@@ -80,6 +80,27 @@ fn millions_of_points_stay_small_and_keep_spikes() {
 }
 
 #[test]
+fn a_series_in_blocks_draws_the_figure_of_the_joined_series() {
+    // Thinning block by block keeps the points thinning the joined series keeps, so the two
+    // figures are the same text; a bad block is named.
+    let n = 1_500_000;
+    let t: Vec<f64> = (0..n).map(|k| k as f64 * 1e-3).collect();
+    let mut y: Vec<f64> = t.iter().map(|t| (3.0 * t).sin() + (50.0 * t).cos()).collect();
+    y[777_777] = -40.0;
+    let axes = || Panel::new(Axis::new("time", "s"), Axis::new("load", "kN"));
+    let whole = Plot::new("f").with_panel(axes().line("load", &t, &y).unwrap());
+    for size in [1_000, 65_536, 400_001] {
+        let blocks: Vec<(&[f64], &[f64])> = t.chunks(size).zip(y.chunks(size)).collect();
+        let parts = Plot::new("f").with_panel(axes().line_blocks("load", &blocks).unwrap());
+        assert_eq!(parts.to_svg().unwrap(), whole.to_svg().unwrap(), "blocks of {size}");
+    }
+    let e = axes()
+        .line_blocks("load", &[(&t[..2], &y[..2]), (&t[2..4], &y[2..3])])
+        .unwrap_err();
+    assert_eq!(e.to_string(), "series load (block 1) has 2 x values but 1 y values");
+}
+
+#[test]
 fn calibration_figure_has_residual_panel() {
     let load = [0.0, 2.0, 4.0, 6.0, 8.0, 10.0];
     let out = [0.0002, 0.4001, 0.7996, 1.2003, 1.6001, 1.9998];

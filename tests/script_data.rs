@@ -279,12 +279,14 @@ fn a_log_reduced_block_by_block_matches_the_whole_log_reduced_at_once() {
         let st = running_stats();
         let fit = running_fit();
         let kept = [];
+        let times = [];
         let blocks_seen = 0;
         for b in blocks("long.csv", #{ block_bytes: 4096 }) {
             let yb = lp.apply(to_strain(b["sg"], "quarter", 2.0));
             st.add(yb);
             fit.add(yb, lpf.apply(b["force"]));
             kept.push(yb);
+            times.push(b.time);
             blocks_seen += 1;
         }
         assert(blocks_seen > 100);
@@ -299,6 +301,15 @@ fn a_log_reduced_block_by_block_matches_the_whole_log_reduced_at_once() {
         assert_eq(joined.len(), y.len());
         assert_close(joined[29999], y[29999], 1e-13);
         assert_eq(rising_crossings(joined, whole.mean), rising_crossings(y, whole.mean));
+        // Rainflow counts and the figure over the blocks are those of the whole record.
+        let rf = rainflow(kept);
+        let rf_whole = rainflow(y);
+        assert(rf.cycles > 10.0);
+        assert_eq(rf.cycles, rf_whole.cycles);
+        assert_eq(rf.start.values(""), rf_whole.start.values(""));
+        assert_eq(rf.range.values("ue"), rf_whole.range.values("ue"));
+        let opts = #{ title: "sg", y_name: "strain", names: ["sg"] };
+        assert_eq(plot(times, kept, opts).to_svg(), plot(f.time, y, opts).to_svg());
         "#,
     );
 }
