@@ -171,3 +171,51 @@ fn with_unit(value: f64, unit: &str) -> String {
         format!("{value} {unit}")
     }
 }
+
+/// The index of the first NaN or infinite value of `x`, if any.
+///
+/// Long channels are checked before every filter, count and figure, so the common case (all
+/// finite) is a pass the compiler vectorises: a value is not finite exactly when its exponent
+/// bits are all ones (IEEE 754-2019 §3.4), and OR-ing that test over a chunk needs no early
+/// exit. Only a chunk that fails is searched for the index.
+pub(crate) fn first_non_finite(x: &[f64]) -> Option<usize> {
+    const EXPONENT: u64 = 0x7FF0_0000_0000_0000;
+    const CHUNK: usize = 256;
+    x.chunks(CHUNK).enumerate().find_map(|(k, c)| {
+        let bad = c
+            .iter()
+            .fold(false, |any, v| any | (v.to_bits() & EXPONENT == EXPONENT));
+        if bad {
+            c.iter().position(|v| !v.is_finite()).map(|i| k * CHUNK + i)
+        } else {
+            None
+        }
+    })
+}
+
+#[cfg(test)]
+mod tests {
+    use super::first_non_finite;
+
+    #[test]
+    fn finds_the_first_nan_or_infinity_in_any_chunk() {
+        let mut x = vec![1.0; 1000];
+        assert_eq!(first_non_finite(&x), None);
+        assert_eq!(first_non_finite(&[]), None);
+        // The largest finite value and the subnormals are finite.
+        x[3] = f64::MAX;
+        x[4] = f64::MIN_POSITIVE / 2.0;
+        assert_eq!(first_non_finite(&x), None);
+        for (at, v) in [
+            (0, f64::NAN),
+            (255, f64::INFINITY),
+            (256, f64::NEG_INFINITY),
+            (999, -f64::NAN),
+        ] {
+            let mut y = x.clone();
+            y[at] = v;
+            y[at.min(998) + 1..].iter_mut().for_each(|e| *e = f64::NAN);
+            assert_eq!(first_non_finite(&y), Some(at), "{v} at {at}");
+        }
+    }
+}

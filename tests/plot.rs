@@ -85,19 +85,29 @@ fn a_series_in_blocks_draws_the_figure_of_the_joined_series() {
     // figures are the same text; a bad block is named.
     let n = 1_500_000;
     let t: Vec<f64> = (0..n).map(|k| k as f64 * 1e-3).collect();
-    let mut y: Vec<f64> = t.iter().map(|t| (3.0 * t).sin() + (50.0 * t).cos()).collect();
+    let mut y: Vec<f64> = t
+        .iter()
+        .map(|t| (3.0 * t).sin() + (50.0 * t).cos())
+        .collect();
     y[777_777] = -40.0;
     let axes = || Panel::new(Axis::new("time", "s"), Axis::new("load", "kN"));
     let whole = Plot::new("f").with_panel(axes().line("load", &t, &y).unwrap());
     for size in [1_000, 65_536, 400_001] {
         let blocks: Vec<(&[f64], &[f64])> = t.chunks(size).zip(y.chunks(size)).collect();
         let parts = Plot::new("f").with_panel(axes().line_blocks("load", &blocks).unwrap());
-        assert_eq!(parts.to_svg().unwrap(), whole.to_svg().unwrap(), "blocks of {size}");
+        assert_eq!(
+            parts.to_svg().unwrap(),
+            whole.to_svg().unwrap(),
+            "blocks of {size}"
+        );
     }
     let e = axes()
         .line_blocks("load", &[(&t[..2], &y[..2]), (&t[2..4], &y[2..3])])
         .unwrap_err();
-    assert_eq!(e.to_string(), "series load (block 1) has 2 x values but 1 y values");
+    assert_eq!(
+        e.to_string(),
+        "series load (block 1) has 2 x values but 1 y values"
+    );
 }
 
 #[test]

@@ -551,7 +551,7 @@ fn check_xy(name: &str, x: &[f64], y: &[f64]) -> Result<(), PlotError> {
 }
 
 fn check_finite(name: &str, axis: &'static str, v: &[f64]) -> Result<(), PlotError> {
-    match v.iter().position(|v| !v.is_finite()) {
+    match crate::error::first_non_finite(v) {
         Some(index) => Err(PlotError::NonFinite {
             series: name.to_string(),
             axis,

@@ -169,7 +169,7 @@ impl Ramp {
 /// ```
 pub fn find_holds(x: &[f64], criteria: &HoldCriteria) -> Result<Vec<Hold>, PhysicsError> {
     criteria.check()?;
-    if let Some(i) = x.iter().position(|v| !v.is_finite()) {
+    if let Some(i) = crate::error::first_non_finite(x) {
         return Err(PhysicsError::invalid(
             format!("sample {i} of the signal"),
             x[i],

@@ -273,7 +273,7 @@ pub(crate) fn check_signal(x: &[f64]) -> Result<(), PhysicsError> {
             found: 0,
         });
     }
-    if let Some(i) = x.iter().position(|v| !v.is_finite()) {
+    if let Some(i) = crate::error::first_non_finite(x) {
         return Err(PhysicsError::invalid(
             format!("sample {i} of the signal"),
             x[i],

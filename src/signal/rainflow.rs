@@ -175,7 +175,7 @@ impl RainflowCounter {
     /// # Ok::<(), gaugebook::PhysicsError>(())
     /// ```
     pub fn add(&mut self, x: &[f64]) -> Result<(), PhysicsError> {
-        if let Some(i) = x.iter().position(|v| !v.is_finite()) {
+        if let Some(i) = crate::error::first_non_finite(x) {
             return Err(PhysicsError::invalid(
                 format!("sample {} of the load history", self.reversals.seen + i),
                 x[i],

@@ -56,7 +56,7 @@ pub fn summarize(x: &[f64]) -> Result<Summary, PhysicsError> {
     let first = first_pass(x);
     let (sum, sum_sq, min, max) = (first.sum, first.sum_sq, first.min, first.max);
     if !(sum.is_finite() && sum_sq.is_finite())
-        && let Some(i) = x.iter().position(|v| !v.is_finite())
+        && let Some(i) = crate::error::first_non_finite(x)
     {
         return Err(PhysicsError::invalid(
             format!("sample {i} of the signal"),

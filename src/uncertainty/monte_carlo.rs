@@ -193,7 +193,7 @@ impl MonteCarlo {
                 right: format!("{} values", y.len()),
             });
         }
-        if let Some(k) = y.iter().position(|v| !v.is_finite()) {
+        if let Some(k) = crate::error::first_non_finite(&y) {
             return Err(PhysicsError::Numerical {
                 what: "Monte Carlo model".into(),
                 reason: format!("trial {k} gave a value that is not finite"),
