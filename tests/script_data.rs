@@ -566,3 +566,25 @@ fn a_column_taken_out_of_a_frame_converts_as_the_shared_one_does() {
     );
     assert_eq!(e.kind, "PropertyNotFound", "{}", e.render());
 }
+
+#[test]
+fn the_blocks_of_one_record_must_agree() {
+    // Blocks are parts of one record: one dimension throughout, and as many x blocks as y.
+    let mut s = session_in(None);
+    let e = err(&mut s, r#"rainflow([column([1.0, 2.0], "kN"), column([3.0], "mm")])"#).render();
+    assert!(e.contains("item 1 of the blocks of rainflow() is a column of"), "{e}");
+    let e = err(&mut s, "rainflow([])").render();
+    assert!(e.contains("the blocks of rainflow() needs at least one column"), "{e}");
+    let e = err(
+        &mut s,
+        r#"plot([column([0.0], "s")], [column([1.0], "N"), column([2.0], "N")], #{})"#,
+    )
+    .render();
+    assert!(e.contains("plot() has 1 x blocks but 2 y blocks"), "{e}");
+    let e = err(
+        &mut s,
+        r#"plot([column([0.0, 1.0], "s")], [column([1.0], "N")], #{})"#,
+    )
+    .render();
+    assert!(e.contains("has 2 x values but 1 y values"), "{e}");
+}

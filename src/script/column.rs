@@ -348,6 +348,32 @@ pub(crate) fn array_columns(items: &Array, func: &str) -> ScriptResult<Vec<Colum
         .collect()
 }
 
+/// The blocks of one record: an array of at least one column, all of the first one's dimension
+/// and kind. `what` names the argument in messages (`"concat()"`, `"the blocks of rainflow()"`).
+pub(crate) fn record_blocks(items: &Array, what: &str) -> ScriptResult<Vec<Column>> {
+    let parts = array_columns(items, what)?;
+    let Some(first) = parts.first() else {
+        return Err(fault(
+            "ArgumentError",
+            format!("{what} needs at least one column"),
+        ));
+    };
+    if let Some((i, c)) = parts
+        .iter()
+        .enumerate()
+        .find(|(_, c)| c.dim != first.dim || c.kind != first.kind)
+    {
+        return Err(fault(
+            "UnitError",
+            format!(
+                "item {i} of {what} is a column of {}, item 0 one of {}",
+                c.dim, first.dim
+            ),
+        ));
+    }
+    Ok(parts)
+}
+
 /// `f` over the values, writing into the buffer when no one else holds it.
 fn map_owned(mut a: Arc<Vec<f64>>, f: impl Fn(f64) -> f64) -> Arc<Vec<f64>> {
     if let Some(v) = Arc::get_mut(&mut a) {
@@ -848,23 +874,8 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |cols: Array| -> ScriptResult<Column> {
-        let parts = array_columns(&cols, "concat()")?;
-        let Some(first) = parts.first() else {
-            return Err(fault("ArgumentError", "concat() needs at least one column"));
-        };
-        if let Some((i, c)) = parts
-            .iter()
-            .enumerate()
-            .find(|(_, c)| c.dim != first.dim || c.kind != first.kind)
-        {
-            return Err(fault(
-                "UnitError",
-                format!(
-                    "item {i} of concat() is a column of {}, item 0 one of {}",
-                    c.dim, first.dim
-                ),
-            ));
-        }
+        let parts = record_blocks(&cols, "concat()")?;
+        let first = &parts[0];
         let mut data = Vec::with_capacity(parts.iter().map(Column::len).sum());
         for c in &parts {
             data.extend_from_slice(&c.data);

@@ -613,24 +613,12 @@ pub(crate) fn register(engine: &mut Engine) {
     "#,
     )
     .register_into_engine(engine, |blocks: Array| -> ScriptResult<Cycles> {
-        let cols = super::column::array_columns(&blocks, "the blocks of rainflow()")?;
-        let Some(first) = cols.first() else {
-            return Err(fault("ArgumentError", "rainflow() needs at least one block"));
-        };
+        let cols = super::column::record_blocks(&blocks, "the blocks of rainflow()")?;
         let mut counter = crate::RainflowCounter::new();
-        for (i, c) in cols.iter().enumerate() {
-            if c.dimension() != first.dimension() {
-                return Err(fault(
-                    "UnitError",
-                    format!(
-                        "item {i} of the blocks of rainflow() is a column of {}, item 0 one of {}",
-                        c.dimension(),
-                        first.dimension()
-                    ),
-                ));
-            }
+        for c in &cols {
             counter.add(c.data())?;
         }
+        let first = &cols[0];
         cycles_of(first, counter.finish())
     });
 
@@ -860,34 +848,15 @@ mod plot {
                     "plot()",
                     &["title", "x_name", "y_name", "names", "size"],
                 )?;
-                let xs = super::super::column::array_columns(&x, "the x blocks of plot()")?;
-                let ys = super::super::column::array_columns(&y, "the y blocks of plot()")?;
+                let xs = super::super::column::record_blocks(&x, "the x blocks of plot()")?;
+                let ys = super::super::column::record_blocks(&y, "the y blocks of plot()")?;
                 if xs.len() != ys.len() {
                     return Err(fault(
                         "ArgumentError",
                         format!("plot() has {} x blocks but {} y blocks", xs.len(), ys.len()),
                     ));
                 }
-                let (Some(x0), Some(y0)) = (xs.first(), ys.first()) else {
-                    return Err(fault(
-                        "ArgumentError",
-                        "plot() needs at least one block to draw",
-                    ));
-                };
-                for (i, (a, b)) in xs.iter().zip(&ys).enumerate() {
-                    if a.dimension() != x0.dimension() || b.dimension() != y0.dimension() {
-                        return Err(fault(
-                            "UnitError",
-                            format!(
-                                "block {i} of plot() is of {} against {}, block 0 of {} against {}",
-                                b.dimension(),
-                                a.dimension(),
-                                y0.dimension(),
-                                x0.dimension()
-                            ),
-                        ));
-                    }
-                }
+                let (x0, y0) = (&xs[0], &ys[0]);
                 let xv = xs.iter().map(shown).collect::<ScriptResult<Vec<_>>>()?;
                 let yv = ys.iter().map(shown).collect::<ScriptResult<Vec<_>>>()?;
                 let blocks: Vec<(&[f64], &[f64])> = xv
