@@ -3,7 +3,7 @@
 //!
 //! ```text
 //! cargo run --release --no-default-features --features data --example reanalysis -- pipeline LOG --out-dir DIR [--format csv|parquet] [--block-mib N]
-//! cargo run --release --no-default-features --features data,script,plot --example reanalysis -- script LOG --out-dir DIR [--format csv|parquet]
+//! cargo run --release --no-default-features --features data,script,plot --example reanalysis -- script LOG --out-dir DIR [--format csv|parquet] [--peer-steps]
 //! cargo run --release --no-default-features --features data --example reanalysis -- bare-read LOG
 //! cargo run --release --no-default-features --features data --example reanalysis -- read-only LOG
 //! cargo run --release --no-default-features --features data --example reanalysis -- compare [--rows 1000000,10000000] [--repeat 3] [--only csv-csv,csv-parquet,parquet-parquet]
@@ -25,12 +25,14 @@
 //! `script` runs `examples/reanalysis.rhai`, the same steps written as a Gaugebook script (the
 //! log read block by block with `blocks`, running filters, statistics and fit, the strain file
 //! on the writer's thread), plus three steps the peer does not take: sg1 strain to load through
-//! the fit, rainflow cycles of the load and a figure of it. Its strain file follows the script
-//! writers' convention (headers `name [unit]`, columns in name order).
+//! the fit, rainflow cycles of the load and a figure of it (left out with `--peer-steps`). Its
+//! strain file follows the script writers' convention (headers `name [unit]`, columns in name
+//! order).
 //!
 //! `compare` generates the logs into `target/benchdata` with `gen_testlog.py` when missing (with
 //! the Parquet copy when a pyarrow Python is found), then runs the peer, this pipeline (and the
-//! script, when built with `script` and `plot`) and bare polars reads, each `--repeat` times under
+//! script, with and without its three extra steps, when built with `script` and `plot`) and bare
+//! polars reads, each `--repeat` times under
 //! `/usr/bin/time -v` (each after a `sync`, so that no run pays for the writeback of the one
 //! before), checks that every summary agrees with the peer's, and prints medians of
 //! wall time, CPU time and peak memory, their ratios, and the load average at the runs' starts.
@@ -412,7 +414,8 @@ fn pipeline(args: &[String]) -> Res<()> {
 }
 
 /// The same pipeline as `examples/reanalysis.rhai`, run in a scripting session: the script reads
-/// the whole log and runs each step over whole columns.
+/// the log block by block. `--peer-steps` leaves out the three steps beyond the peer's (load,
+/// rainflow counts and figure), for a like-for-like time.
 #[cfg(all(feature = "script", feature = "plot"))]
 fn script(args: &[String]) -> Res<()> {
     use gaugebook::script::rhai::Dynamic;
@@ -445,6 +448,8 @@ fn script(args: &[String]) -> Res<()> {
     session.set_constant("STEM", Dynamic::from(stem));
     session.set_constant("INPUT", Dynamic::from(input));
     session.set_constant("FORMAT", Dynamic::from(format.to_string()));
+    let extras = !args.iter().any(|a| a == "--peer-steps");
+    session.set_constant("EXTRAS", Dynamic::from(extras));
     session.eval_cell(&source, &text(&here.join("reanalysis.rhai")))?;
     Ok(())
 }
@@ -772,22 +777,22 @@ fn compare(args: &[String]) -> Res<()> {
             #[cfg_attr(not(all(feature = "script", feature = "plot")), allow(unused_mut))]
             let mut rows_out = vec![("Rust", ours)];
             #[cfg(all(feature = "script", feature = "plot"))]
-            {
+            for (how, extra) in [
+                ("script", None),
+                ("script, peer's steps", Some("--peer-steps")),
+            ] {
                 let script_out = data.join(format!("out_script_{variant}"));
-                let m = measured(
-                    &[
-                        me,
-                        "script",
-                        input,
-                        "--out-dir",
-                        script_out.to_str().ok_or("path")?,
-                        "--format",
-                        output,
-                    ],
-                    &data,
-                    repeat,
-                )?;
-                rows_out.push(("script", m));
+                let mut command = vec![
+                    me,
+                    "script",
+                    input,
+                    "--out-dir",
+                    script_out.to_str().ok_or("path")?,
+                    "--format",
+                    output,
+                ];
+                command.extend(extra);
+                rows_out.push((how, measured(&command, &data, repeat)?));
             }
             for (how, ours) in rows_out {
                 println!(

@@ -444,6 +444,7 @@ fn the_reanalysis_example_script_matches_the_whole_record_steps() {
     s.set_constant("STEM", Dynamic::from("rig".to_string()));
     s.set_constant("INPUT", Dynamic::from("rig.csv".to_string()));
     s.set_constant("FORMAT", Dynamic::from("parquet".to_string()));
+    s.set_constant("EXTRAS", Dynamic::from(true));
     if let Err(e) = s.eval_cell(&source, &here.join("reanalysis.rhai").to_string_lossy()) {
         panic!("{}", e.render());
     }
@@ -571,10 +572,20 @@ fn a_column_taken_out_of_a_frame_converts_as_the_shared_one_does() {
 fn the_blocks_of_one_record_must_agree() {
     // Blocks are parts of one record: one dimension throughout, and as many x blocks as y.
     let mut s = session_in(None);
-    let e = err(&mut s, r#"rainflow([column([1.0, 2.0], "kN"), column([3.0], "mm")])"#).render();
-    assert!(e.contains("item 1 of the blocks of rainflow() is a column of"), "{e}");
+    let e = err(
+        &mut s,
+        r#"rainflow([column([1.0, 2.0], "kN"), column([3.0], "mm")])"#,
+    )
+    .render();
+    assert!(
+        e.contains("item 1 of the blocks of rainflow() is a column of"),
+        "{e}"
+    );
     let e = err(&mut s, "rainflow([])").render();
-    assert!(e.contains("the blocks of rainflow() needs at least one column"), "{e}");
+    assert!(
+        e.contains("the blocks of rainflow() needs at least one column"),
+        "{e}"
+    );
     let e = err(
         &mut s,
         r#"plot([column([0.0], "s")], [column([1.0], "N"), column([2.0], "N")], #{})"#,
