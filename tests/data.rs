@@ -143,6 +143,12 @@ fn header_only() {
         let e = err(&p, &LogOptions::new());
         assert!(matches!(e, DataError::NoRows { .. }), "{name}: {e}");
     }
+    // A Parquet file written with no rows is a whole file (schema, no row groups) and reads as
+    // a header without rows, not as a damaged file.
+    let p = d.path().join("h.parquet");
+    write_columns(&p, &[("time", &[]), ("a", &[])], &ExportOptions::default()).unwrap();
+    let e = err(&p, &LogOptions::new());
+    assert!(matches!(e, DataError::NoRows { .. }), "h.parquet: {e}");
 }
 
 #[test]

@@ -599,3 +599,20 @@ fn the_blocks_of_one_record_must_agree() {
     .render();
     assert!(e.contains("has 2 x values but 1 y values"), "{e}");
 }
+
+#[test]
+fn blocks_in_other_units_draw_in_the_first_blocks_unit() {
+    // The reference is the joined record (concat shows it in the first block's unit).
+    let mut s = session_in(None);
+    run(
+        &mut s,
+        r#"
+        let t = [column([0.0, 0.5], "s"), column([1000.0, 1500.0], "ms")];
+        let f = [column([0.0, 1.0], "kN"), column([2000.0, 1000.0], "N")];
+        let whole = plot(concat(t), concat(f), #{ names: ["F"] });
+        let svg = plot(t, f, #{ names: ["F"] }).to_svg();
+        assert(svg.contains("(kN)"));
+        assert_eq(svg, whole.to_svg());
+        "#,
+    );
+}

@@ -69,6 +69,11 @@ impl ParquetSink {
 
     /// Writes one row group of `rows` rows, one buffer per column (all of `rows` values).
     pub(super) fn write(&mut self, rows: usize, columns: &[Arc<Vec<f64>>]) -> PolarsResult<()> {
+        // An empty block adds no row group (as polars' own writer skips empty batches): the file
+        // of an empty log is its schema and no groups.
+        if rows == 0 {
+            return Ok(());
+        }
         let options = self.options;
         let mut encoded = Vec::with_capacity(columns.len());
         for (values, ty) in columns.iter().zip(&self.types) {

@@ -733,7 +733,13 @@ mod plot {
 
     /// The column's numbers in its display unit.
     fn shown(c: &Column) -> ScriptResult<std::borrow::Cow<'_, [f64]>> {
-        match c.unit() {
+        shown_like(c, c)
+    }
+
+    /// The column's numbers in `like`'s display unit (the blocks of a record are drawn in the
+    /// first block's unit, which labels the axis).
+    fn shown_like<'a>(c: &'a Column, like: &Column) -> ScriptResult<std::borrow::Cow<'a, [f64]>> {
+        match like.unit() {
             // Already in its display unit (s, N, V): no copy of a long channel.
             Some(u) if u.factor() == 1.0 && u.offset() == 0.0 => Ok(c.data().as_slice().into()),
             Some(u) => Ok(c.values_in(u.symbol())?.into()),
@@ -857,8 +863,14 @@ mod plot {
                     ));
                 }
                 let (x0, y0) = (&xs[0], &ys[0]);
-                let xv = xs.iter().map(shown).collect::<ScriptResult<Vec<_>>>()?;
-                let yv = ys.iter().map(shown).collect::<ScriptResult<Vec<_>>>()?;
+                let xv = xs
+                    .iter()
+                    .map(|c| shown_like(c, x0))
+                    .collect::<ScriptResult<Vec<_>>>()?;
+                let yv = ys
+                    .iter()
+                    .map(|c| shown_like(c, y0))
+                    .collect::<ScriptResult<Vec<_>>>()?;
                 let blocks: Vec<(&[f64], &[f64])> = xv
                     .iter()
                     .zip(&yv)
