@@ -4,7 +4,7 @@
 //! millions of samples stays small and quick to draw.
 
 use super::error::PlotError;
-use super::thin::thin_blocks;
+use super::thin::{join_blocks, thin_blocks};
 
 /// Columns of the grid long line series are thinned to when added: finer than any figure is
 /// drawn (so the pixel-column thinning at drawing time still sees every extreme).
@@ -166,10 +166,7 @@ impl Panel {
         let (x, y) = if sorted {
             thin_blocks(blocks, STORE_COLUMNS)
         } else {
-            (
-                blocks.iter().flat_map(|b| b.0.iter().copied()).collect(),
-                blocks.iter().flat_map(|b| b.1.iter().copied()).collect(),
-            )
+            join_blocks(blocks)
         };
         self.series.push(Series {
             name: name.to_string(),

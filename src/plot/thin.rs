@@ -12,6 +12,14 @@ pub(crate) fn thin(x: &[f64], y: &[f64], columns: usize) -> (Vec<f64>, Vec<f64>)
     thin_blocks(&[(x, y)], columns)
 }
 
+/// The blocks (x, y) joined into one series.
+pub(crate) fn join_blocks(blocks: &[(&[f64], &[f64])]) -> (Vec<f64>, Vec<f64>) {
+    (
+        blocks.iter().flat_map(|b| b.0.iter().copied()).collect(),
+        blocks.iter().flat_map(|b| b.1.iter().copied()).collect(),
+    )
+}
+
 /// One kept point: its index in the whole series, x and y.
 type Kept = (usize, f64, f64);
 
@@ -19,12 +27,7 @@ type Kept = (usize, f64, f64);
 /// column being gathered carries over from one block to the next.
 pub(crate) fn thin_blocks(blocks: &[(&[f64], &[f64])], columns: usize) -> (Vec<f64>, Vec<f64>) {
     let n: usize = blocks.iter().map(|b| b.0.len()).sum();
-    let joined = || {
-        (
-            blocks.iter().flat_map(|b| b.0.iter().copied()).collect(),
-            blocks.iter().flat_map(|b| b.1.iter().copied()).collect(),
-        )
-    };
+    let joined = || join_blocks(blocks);
     let x0 = blocks.iter().find_map(|b| b.0.first().copied());
     let x1 = blocks.iter().rev().find_map(|b| b.0.last().copied());
     let (Some(x0), Some(x1)) = (x0, x1) else {
